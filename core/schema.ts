@@ -1,0 +1,444 @@
+/**
+ * The home file, `sealwork-home/1`: one house, its leak test, its measures and the
+ * assumptions, as JSON. This zod schema is the single definition of that format; the CLI,
+ * export and import, and the tests all read it through `parseHomeFile`.
+ *
+ * Field names carry their units. Unknown fields are errors. Every error names the field's
+ * path and what was expected there.
+ */
+import { z } from 'zod';
+import { InputError, type InputProblem } from './errors.ts';
+import { problemsFromZod } from './_lib/zod-problems.ts';
+import { findMeasureType, MEASURE_LIBRARY } from './measure-library.ts';
+
+export const HOME_FILE_FORMAT = 'sealwork-home/1';
+
+export const FUELS = [
+  'naturalGas',
+  'propane',
+  'heatingOil',
+  'kerosene',
+  'electricity',
+  'wood',
+  'pellets',
+] as const;
+export type Fuel = (typeof FUELS)[number];
+
+export const HEATING_EQUIPMENT = [
+  'furnace',
+  'boiler',
+  'heatPump',
+  'electricResistance',
+  'stove',
+] as const;
+export type HeatingEquipment = (typeof HEATING_EQUIPMENT)[number];
+
+export const COMBUSTION_VENTING = ['naturalDraft', 'inducedDraft', 'sealed', 'none'] as const;
+export type CombustionVenting = (typeof COMBUSTION_VENTING)[number];
+
+export const FOUNDATIONS = ['basement', 'crawlspace', 'slab'] as const;
+export type Foundation = (typeof FOUNDATIONS)[number];
+
+export const LEAK_LOCATIONS = ['ceiling', 'wall', 'floor', 'flue'] as const;
+export type LeakLocation = (typeof LEAK_LOCATIONS)[number];
+
+export const RANKINGS = ['sir', 'npv', 'payback', 'cce'] as const;
+export type Ranking = (typeof RANKINGS)[number];
+
+export const INFILTRATION_METHODS = ['nFactor', 'lblBasic', 'aim2', 'ashrae622'] as const;
+export type InfiltrationMethod = (typeof INFILTRATION_METHODS)[number];
+
+export const MEASURE_STATUSES = ['planned', 'done', 'declined'] as const;
+export type MeasureStatus = (typeof MEASURE_STATUSES)[number];
+
+export const APPLIANCE_KINDS = [
+  'waterHeater',
+  'furnace',
+  'boiler',
+  'spaceHeater',
+  'range',
+  'dryer',
+  'fireplace',
+  'stove',
+] as const;
+export type ApplianceKind = (typeof APPLIANCE_KINDS)[number];
+
+export const FAN_TYPES = ['exhaust', 'supply', 'balanced'] as const;
+export type FanType = (typeof FAN_TYPES)[number];
+
+/** Fuels that burn in the house; electricity is the only one that does not. */
+export const COMBUSTION_FUELS: readonly Fuel[] = FUELS.filter((fuel) => fuel !== 'electricity');
+
+const finite = () => z.number().refine(Number.isFinite, 'expected a finite number');
+
+/** A low / likely / high estimate; the order is checked once the numbers parse. */
+function rangeSchema(options: { min: number; max: number }) {
+  const bound = () => z.number().min(options.min).max(options.max);
+  return z
+    .strictObject({ low: bound(), likely: bound(), high: bound() })
+    .check((ctx) => {
+      const { low, likely, high } = ctx.value;
+      if (!(low <= likely && likely <= high)) {
+        ctx.issues.push({
+          code: 'custom',
+          input: ctx.value,
+          message: `expected low ≤ likely ≤ high, got ${low} / ${likely} / ${high}`,
+        });
+      }
+    });
+}
+
+export type Range = { low: number; likely: number; high: number };
+
+const houseSchema = z.strictObject({
+  conditionedFloorAreaFt2: z.number().positive().max(100_000),
+  conditionedVolumeFt3: z.number().positive().max(2_000_000),
+  stories: z.number().min(1).max(4),
+  /** Height of the pressure boundary above grade, lowest to highest leak (stack height). */
+  heightFt: z.number().positive().max(100),
+  bedrooms: z.int().min(0).max(30),
+  shelterClass: z.int().min(1).max(5),
+  foundation: z.enum(FOUNDATIONS),
+  yearBuilt: z.int().min(1600).max(2100),
+  envelopeAreaFt2: z.number().positive().max(500_000).optional(),
+  knobAndTubeWiring: z.boolean().optional(),
+  vermiculiteSuspected: z.boolean().optional(),
+});
+
+const seasonSchema = z.strictObject({
+  /** Mean indoor − outdoor temperature difference over the season, °F (absolute). */
+  meanDeltaTF: z.number().min(0).max(120),
+  /** Mean wind speed at the weather station (10 m) over the season, mph. */
+  meanWindSpeedMph: z.number().min(0).max(60),
+  indoorTempF: z.number().min(40).max(90).optional(),
+  /** Σ over cooling hours of (outdoor − indoor humidity ratio)⁺, grain/lb · h, for latent load. */
+  latentGrainHours: z.number().min(0).max(10_000_000).optional(),
+});
+
+const climateSchema = z.strictObject({
+  name: z.string().min(1).max(200),
+  hdd65F: z.number().min(0).max(20_000),
+  cdd65F: z.number().min(0).max(10_000),
+  elevationFt: z.number().min(-1500).max(15_000),
+  nFactorZone: z.int().min(1).max(4).optional(),
+  wsf: z.number().positive().max(3).optional(),
+  heatingSeason: seasonSchema.optional(),
+  coolingSeason: seasonSchema.optional(),
+});
+
+const heatingSchema = z.strictObject({
+  fuel: z.enum(FUELS),
+  equipment: z.enum(HEATING_EQUIPMENT),
+  /** AFUE or COP as a fraction; HSPF (Btu/Wh) for a heat pump. */
+  efficiency: z.number().positive().max(20),
+  distributionEfficiency: z.number().min(0.3).max(1).optional(),
+  combustionVenting: z.enum(COMBUSTION_VENTING).optional(),
+  /** Whether the appliance sits inside the pressure boundary (default: yes). */
+  insidePressureBoundary: z.boolean().optional(),
+});
+
+const coolingSchema = z.strictObject({
+  seer: z.number().min(5).max(40),
+  distributionEfficiency: z.number().min(0.3).max(1).optional(),
+});
+
+const priceSchema = z.strictObject({
+  usdPerUnit: z.number().min(0).max(10_000),
+  escalationRateReal: z.number().min(-0.1).max(0.2).optional(),
+});
+
+const pricesSchema = z.strictObject(
+  Object.fromEntries(FUELS.map((fuel) => [fuel, priceSchema.optional()])) as Record<
+    Fuel,
+    z.ZodOptional<typeof priceSchema>
+  >,
+);
+
+const economicsSchema = z.strictObject({
+  discountRateReal: z.number().min(-0.05).max(0.2),
+  ranking: z.enum(RANKINGS).optional(),
+});
+
+const leakageTestSchema = z
+  .strictObject({
+    cfm50: z.number().positive().max(100_000).optional(),
+    exponentN: z.number().min(0.3).max(1.2).optional(),
+    points: z
+      .array(
+        z.strictObject({
+          pa: z.number().positive().max(200),
+          cfm: z.number().positive().max(200_000),
+        }),
+      )
+      .min(2)
+      .max(50)
+      .optional(),
+  })
+  .check((ctx) => {
+    const test = ctx.value;
+    const hasPoint = test.cfm50 !== undefined;
+    const hasPoints = test.points !== undefined;
+    if (hasPoint === hasPoints) {
+      ctx.issues.push({
+        code: 'custom',
+        input: test,
+        message: 'expected either { cfm50 } for a one-point test or { points: [{ pa, cfm }] }',
+      });
+    }
+    if (hasPoints && test.exponentN !== undefined) {
+      ctx.issues.push({
+        code: 'custom',
+        input: test,
+        path: ['exponentN'],
+        message: 'a multipoint test fits its own exponent; leave exponentN out',
+      });
+    }
+  });
+
+const costSchema = z.strictObject({
+  materialsUsd: z.number().min(0).max(1_000_000),
+  laborHours: z.number().min(0).max(10_000),
+  laborRateUsdPerHour: z.number().min(0).max(1_000),
+  markupFraction: z.number().min(0).max(5).optional(),
+  healthAndSafety: z.boolean().optional(),
+});
+
+const measureSchema = z.strictObject({
+  id: z.string().min(1).max(64),
+  type: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'expected a kebab-case measure type id'),
+  location: z.enum(LEAK_LOCATIONS).optional(),
+  /** Direct estimate of the CFM50 this measure removes. */
+  reductionCfm50: rangeSchema({ min: 0, max: 100_000 }).optional(),
+  /** Units × component leakage area × sealing effectiveness (defaults from the library). */
+  byUnits: z
+    .strictObject({
+      units: z.number().positive().max(100_000),
+      leakageAreaIn2PerUnit: rangeSchema({ min: 0, max: 10_000 }).optional(),
+      sealingEffectiveness: rangeSchema({ min: 0, max: 1 }).optional(),
+    })
+    .optional(),
+  /** A share of the leakage found at the measure's location at test-in. */
+  shareOfLocation: z.strictObject({ share: rangeSchema({ min: 0, max: 1 }) }).optional(),
+  cost: costSchema,
+  lifeYears: z.int().min(1).max(100).optional(),
+  status: z.enum(MEASURE_STATUSES).optional(),
+  note: z.string().max(2000).optional(),
+});
+
+const applianceSchema = z.strictObject({
+  kind: z.enum(APPLIANCE_KINDS),
+  fuel: z.enum(FUELS),
+  venting: z.enum(COMBUSTION_VENTING),
+  insidePressureBoundary: z.boolean().optional(),
+});
+
+const ventilationSchema = z.strictObject({
+  existingFanCfm: z.number().min(0).max(2_000).optional(),
+  fanType: z.enum(FAN_TYPES).optional(),
+  fanCostUsd: z.number().min(0).max(50_000).optional(),
+  fanWattsPerCfm: z.number().min(0).max(5).optional(),
+  fanLifeYears: z.int().min(1).max(50).optional(),
+});
+
+const leakSharesSchema = z.strictObject({
+  ceiling: z.number().min(0).max(1),
+  wall: z.number().min(0).max(1),
+  floor: z.number().min(0).max(1),
+  flue: z.number().min(0).max(1),
+});
+
+export const homeFileSchema = z
+  .strictObject({
+    format: z.literal(HOME_FILE_FORMAT),
+    name: z.string().min(1).max(200),
+    house: houseSchema,
+    climate: climateSchema,
+    heating: heatingSchema,
+    cooling: coolingSchema.nullable().optional(),
+    prices: pricesSchema,
+    economics: economicsSchema,
+    infiltrationMethod: z.enum(INFILTRATION_METHODS),
+    nFactorOverride: z.number().min(5).max(40).optional(),
+    leakShares: leakSharesSchema.optional(),
+    leakageTest: leakageTestSchema,
+    leakageFloorCfm50: z.number().min(0).max(100_000).optional(),
+    combustionAppliances: z.array(applianceSchema).max(20).optional(),
+    ventilation: ventilationSchema.optional(),
+    emissions: z.strictObject({ electricityKgCo2PerKwh: z.number().min(0).max(2) }).optional(),
+    measures: z.array(measureSchema).max(200),
+  })
+  .check((ctx) => {
+    for (const problem of consistencyProblems(ctx.value)) {
+      ctx.issues.push({
+        code: 'custom',
+        input: ctx.value,
+        path: problem.path,
+        message: problem.message,
+      });
+    }
+  });
+
+export type HomeFile = z.output<typeof homeFileSchema>;
+export type Measure = HomeFile['measures'][number];
+export type House = HomeFile['house'];
+export type Climate = HomeFile['climate'];
+export type Heating = HomeFile['heating'];
+export type Cooling = NonNullable<HomeFile['cooling']>;
+export type CombustionAppliance = NonNullable<HomeFile['combustionAppliances']>[number];
+export type LeakShares = NonNullable<HomeFile['leakShares']>;
+
+interface PathProblem {
+  path: (string | number)[];
+  message: string;
+}
+
+/** Rules that tie fields together; each problem points at the field to change. */
+function consistencyProblems(home: HomeFile): PathProblem[] {
+  const problems: PathProblem[] = [];
+  const { house, heating, climate } = home;
+
+  const meanCeilingFt = house.conditionedVolumeFt3 / house.conditionedFloorAreaFt2;
+  if (meanCeilingFt < 5 || meanCeilingFt > 30) {
+    problems.push({
+      path: ['house', 'conditionedVolumeFt3'],
+      message: `volume ÷ floor area gives a mean ceiling height of ${meanCeilingFt.toFixed(1)} ft; expected 5 to 30 ft`,
+    });
+  }
+
+  const electricOnly = heating.equipment === 'heatPump' || heating.equipment === 'electricResistance';
+  if (electricOnly && heating.fuel !== 'electricity') {
+    problems.push({
+      path: ['heating', 'fuel'],
+      message: `expected "electricity" for a ${heating.equipment}`,
+    });
+  }
+  if (!electricOnly && heating.fuel === 'electricity') {
+    problems.push({
+      path: ['heating', 'equipment'],
+      message: 'expected "heatPump" or "electricResistance" for electric heating',
+    });
+  }
+  if (heating.equipment === 'heatPump') {
+    if (heating.efficiency < 3) {
+      problems.push({
+        path: ['heating', 'efficiency'],
+        message: `expected HSPF in Btu/Wh (3 to 20) for a heat pump, got ${heating.efficiency}`,
+      });
+    }
+  } else if (heating.efficiency > 1 || heating.efficiency < 0.3) {
+    problems.push({
+      path: ['heating', 'efficiency'],
+      message: `expected AFUE or COP as a fraction from 0.3 to 1 (0.8 for 80 %), got ${heating.efficiency}`,
+    });
+  }
+  if (heating.fuel === 'electricity' && heating.combustionVenting && heating.combustionVenting !== 'none') {
+    problems.push({
+      path: ['heating', 'combustionVenting'],
+      message: 'electric heating has no combustion venting; expected "none" or leave it out',
+    });
+  }
+
+  if (home.prices[heating.fuel] === undefined) {
+    problems.push({
+      path: ['prices', heating.fuel],
+      message: `is required: expected the price of the heating fuel { usdPerUnit }`,
+    });
+  }
+  const needsElectricity = home.cooling != null || heating.fuel === 'electricity';
+  if (needsElectricity && home.prices.electricity === undefined && heating.fuel !== 'electricity') {
+    problems.push({
+      path: ['prices', 'electricity'],
+      message: 'is required for cooling: expected { usdPerUnit } per kWh',
+    });
+  }
+
+  if (home.infiltrationMethod === 'nFactor' && home.nFactorOverride === undefined) {
+    if (climate.nFactorZone === undefined) {
+      problems.push({
+        path: ['climate', 'nFactorZone'],
+        message: 'is required for infiltrationMethod "nFactor" unless nFactorOverride is given: expected 1 to 4',
+      });
+    }
+  }
+  if (home.infiltrationMethod === 'lblBasic' || home.infiltrationMethod === 'aim2') {
+    if (climate.heatingSeason === undefined) {
+      problems.push({
+        path: ['climate', 'heatingSeason'],
+        message: `is required for infiltrationMethod "${home.infiltrationMethod}": expected { meanDeltaTF, meanWindSpeedMph }`,
+      });
+    }
+    if (home.cooling != null && climate.coolingSeason === undefined) {
+      problems.push({
+        path: ['climate', 'coolingSeason'],
+        message: `is required for infiltrationMethod "${home.infiltrationMethod}" with cooling: expected { meanDeltaTF, meanWindSpeedMph }`,
+      });
+    }
+  }
+  if (home.infiltrationMethod === 'ashrae622' && climate.wsf === undefined) {
+    problems.push({
+      path: ['climate', 'wsf'],
+      message: 'is required for infiltrationMethod "ashrae622": expected the weather and shielding factor of the nearest station (62.2 normative appendix)',
+    });
+  }
+
+  if (home.leakShares) {
+    const { ceiling, wall, floor, flue } = home.leakShares;
+    const total = ceiling + wall + floor + flue;
+    if (Math.abs(total - 1) > 0.001) {
+      problems.push({
+        path: ['leakShares'],
+        message: `expected ceiling + wall + floor + flue = 1, got ${total.toFixed(3)}`,
+      });
+    }
+  }
+
+  problems.push(...measureProblems(home.measures));
+  return problems;
+}
+
+function measureProblems(measures: readonly Measure[]): PathProblem[] {
+  const problems: PathProblem[] = [];
+  const seenIds = new Set<string>();
+  measures.forEach((measure, index) => {
+    if (seenIds.has(measure.id)) {
+      problems.push({
+        path: ['measures', index, 'id'],
+        message: `expected a unique id; "${measure.id}" is used twice`,
+      });
+    }
+    seenIds.add(measure.id);
+    if (!findMeasureType(measure.type)) {
+      problems.push({
+        path: ['measures', index, 'type'],
+        message: `expected a measure type from the library (${MEASURE_LIBRARY.map((t) => t.id).join(', ')}), got "${measure.type}"`,
+      });
+    }
+    const estimates = [measure.reductionCfm50, measure.byUnits, measure.shareOfLocation].filter(
+      (estimate) => estimate !== undefined,
+    );
+    if (estimates.length !== 1) {
+      problems.push({
+        path: ['measures', index],
+        message:
+          'expected exactly one estimate: reductionCfm50 { low, likely, high }, byUnits { units } or shareOfLocation { share }',
+      });
+    }
+  });
+  return problems;
+}
+
+/** Parses and checks a home file; throws `InputError` listing every problem found. */
+export function parseHomeFile(input: unknown): HomeFile {
+  const result = homeFileSchema.safeParse(input);
+  if (result.success) return result.data;
+  throw new InputError(problemsFromZod(result.error, input));
+}
+
+/** Like `parseHomeFile`, but returns the problems instead of throwing. */
+export function checkHomeFile(
+  input: unknown,
+): { ok: true; home: HomeFile } | { ok: false; problems: readonly InputProblem[] } {
+  const result = homeFileSchema.safeParse(input);
+  if (result.success) return { ok: true, home: result.data };
+  return { ok: false, problems: problemsFromZod(result.error, input) };
+}
