@@ -17,6 +17,10 @@ export default tseslint.config(
     },
   },
   {
+    files: ['**/*.js'],
+    languageOptions: { globals: { process: 'readonly', console: 'readonly' } },
+  },
+  {
     files: ['core/**/*.ts'],
     rules: {
       // core/ is deterministic: no clock and no global randomness.

@@ -69,23 +69,19 @@ export type FanType = (typeof FAN_TYPES)[number];
 /** Fuels that burn in the house; electricity is the only one that does not. */
 export const COMBUSTION_FUELS: readonly Fuel[] = FUELS.filter((fuel) => fuel !== 'electricity');
 
-const finite = () => z.number().refine(Number.isFinite, 'expected a finite number');
-
 /** A low / likely / high estimate; the order is checked once the numbers parse. */
 function rangeSchema(options: { min: number; max: number }) {
   const bound = () => z.number().min(options.min).max(options.max);
-  return z
-    .strictObject({ low: bound(), likely: bound(), high: bound() })
-    .check((ctx) => {
-      const { low, likely, high } = ctx.value;
-      if (!(low <= likely && likely <= high)) {
-        ctx.issues.push({
-          code: 'custom',
-          input: ctx.value,
-          message: `expected low ≤ likely ≤ high, got ${low} / ${likely} / ${high}`,
-        });
-      }
-    });
+  return z.strictObject({ low: bound(), likely: bound(), high: bound() }).check((ctx) => {
+    const { low, likely, high } = ctx.value;
+    if (!(low <= likely && likely <= high)) {
+      ctx.issues.push({
+        code: 'custom',
+        input: ctx.value,
+        message: `expected low ≤ likely ≤ high, got ${low} / ${likely} / ${high}`,
+      });
+    }
+  });
 }
 
 export type Range = { low: number; likely: number; high: number };
@@ -97,7 +93,7 @@ const houseSchema = z.strictObject({
   /** Height of the pressure boundary above grade, lowest to highest leak (stack height). */
   heightFt: z.number().positive().max(100),
   bedrooms: z.int().min(0).max(30),
-  shelterClass: z.int().min(1).max(5),
+  shelterClass: z.literal([1, 2, 3, 4, 5]),
   foundation: z.enum(FOUNDATIONS),
   yearBuilt: z.int().min(1600).max(2100),
   envelopeAreaFt2: z.number().positive().max(500_000).optional(),
@@ -120,7 +116,7 @@ const climateSchema = z.strictObject({
   hdd65F: z.number().min(0).max(20_000),
   cdd65F: z.number().min(0).max(10_000),
   elevationFt: z.number().min(-1500).max(15_000),
-  nFactorZone: z.int().min(1).max(4).optional(),
+  nFactorZone: z.literal([1, 2, 3, 4]).optional(),
   wsf: z.number().positive().max(3).optional(),
   heatingSeason: seasonSchema.optional(),
   coolingSeason: seasonSchema.optional(),
@@ -265,6 +261,9 @@ export const homeFileSchema = z
     combustionAppliances: z.array(applianceSchema).max(20).optional(),
     ventilation: ventilationSchema.optional(),
     emissions: z.strictObject({ electricityKgCo2PerKwh: z.number().min(0).max(2) }).optional(),
+    financing: z
+      .strictObject({ aprNominal: z.number().min(0).max(0.5), months: z.int().min(1).max(480) })
+      .optional(),
     measures: z.array(measureSchema).max(200),
   })
   .check((ctx) => {
@@ -305,7 +304,8 @@ function consistencyProblems(home: HomeFile): PathProblem[] {
     });
   }
 
-  const electricOnly = heating.equipment === 'heatPump' || heating.equipment === 'electricResistance';
+  const electricOnly =
+    heating.equipment === 'heatPump' || heating.equipment === 'electricResistance';
   if (electricOnly && heating.fuel !== 'electricity') {
     problems.push({
       path: ['heating', 'fuel'],
@@ -331,7 +331,11 @@ function consistencyProblems(home: HomeFile): PathProblem[] {
       message: `expected AFUE or COP as a fraction from 0.3 to 1 (0.8 for 80 %), got ${heating.efficiency}`,
     });
   }
-  if (heating.fuel === 'electricity' && heating.combustionVenting && heating.combustionVenting !== 'none') {
+  if (
+    heating.fuel === 'electricity' &&
+    heating.combustionVenting &&
+    heating.combustionVenting !== 'none'
+  ) {
     problems.push({
       path: ['heating', 'combustionVenting'],
       message: 'electric heating has no combustion venting; expected "none" or leave it out',
@@ -344,7 +348,7 @@ function consistencyProblems(home: HomeFile): PathProblem[] {
       message: `is required: expected the price of the heating fuel { usdPerUnit }`,
     });
   }
-  const needsElectricity = home.cooling != null || heating.fuel === 'electricity';
+  const needsElectricity = Boolean(home.cooling) || heating.fuel === 'electricity';
   if (needsElectricity && home.prices.electricity === undefined && heating.fuel !== 'electricity') {
     problems.push({
       path: ['prices', 'electricity'],
@@ -356,7 +360,8 @@ function consistencyProblems(home: HomeFile): PathProblem[] {
     if (climate.nFactorZone === undefined) {
       problems.push({
         path: ['climate', 'nFactorZone'],
-        message: 'is required for infiltrationMethod "nFactor" unless nFactorOverride is given: expected 1 to 4',
+        message:
+          'is required for infiltrationMethod "nFactor" unless nFactorOverride is given: expected 1 to 4',
       });
     }
   }
@@ -367,7 +372,7 @@ function consistencyProblems(home: HomeFile): PathProblem[] {
         message: `is required for infiltrationMethod "${home.infiltrationMethod}": expected { meanDeltaTF, meanWindSpeedMph }`,
       });
     }
-    if (home.cooling != null && climate.coolingSeason === undefined) {
+    if (Boolean(home.cooling) && climate.coolingSeason === undefined) {
       problems.push({
         path: ['climate', 'coolingSeason'],
         message: `is required for infiltrationMethod "${home.infiltrationMethod}" with cooling: expected { meanDeltaTF, meanWindSpeedMph }`,
@@ -377,7 +382,8 @@ function consistencyProblems(home: HomeFile): PathProblem[] {
   if (home.infiltrationMethod === 'ashrae622' && climate.wsf === undefined) {
     problems.push({
       path: ['climate', 'wsf'],
-      message: 'is required for infiltrationMethod "ashrae622": expected the weather and shielding factor of the nearest station (62.2 normative appendix)',
+      message:
+        'is required for infiltrationMethod "ashrae622": expected the weather and shielding factor of the nearest station (62.2 normative appendix)',
     });
   }
 
@@ -442,3 +448,6 @@ export function checkHomeFile(
   if (result.success) return { ok: true, home: result.data };
   return { ok: false, problems: problemsFromZod(result.error, input) };
 }
+
+/** A home file as written, before defaults: what demo data and tests construct. */
+export type HomeFileInput = z.input<typeof homeFileSchema>;

@@ -31,7 +31,8 @@ function describe(value: unknown): string {
   if (value === undefined) return 'nothing';
   if (value === null) return 'null';
   if (Array.isArray(value)) return 'a list';
-  if (typeof value === 'string') return `"${value.length > 40 ? value.slice(0, 37) + '...' : value}"`;
+  if (typeof value === 'string')
+    return `"${value.length > 40 ? value.slice(0, 37) + '...' : value}"`;
   if (typeof value === 'number') return Number.isFinite(value) ? String(value) : String(value);
   if (typeof value === 'object') return 'an object';
   return String(value);

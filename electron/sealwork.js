@@ -3,5 +3,5 @@
 import { register } from 'tsx/esm/api';
 
 register();
-const { main } = await import('../electron/cli.ts');
+const { main } = await import('./cli.ts');
 process.exitCode = await main(process.argv.slice(2));

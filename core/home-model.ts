@@ -1,0 +1,316 @@
+/**
+ * A home ready to be planned: its test-in leakage split by location, and the functions that
+ * turn any leakage state into seasonal infiltration, energy and the 62.2 ventilation need,
+ * by the infiltration method the home file chose.
+ */
+import {
+  annualEnergyOfAirflow,
+  type AnnualEnergy,
+  type EnergyContext,
+  type SeasonalAirflowCfm,
+} from './energy.ts';
+import { InputError } from './errors.ts';
+import { aim2Infiltration } from './infiltration/aim2.ts';
+import { HOURS_PER_YEAR } from './constants.ts';
+import {
+  combinedAirflowCfm,
+  effectiveAnnualInfiltrationCfm,
+  requiredVentilationCfm,
+  ventilationFanNeedCfm,
+} from './infiltration/ashrae-622.ts';
+import { lblBasicInfiltration } from './infiltration/lbl-basic.ts';
+import {
+  lblNFactor,
+  nFactorInfiltration,
+  shieldingForShelterClass,
+} from './infiltration/n-factor.ts';
+import { elaIn2, type LeakageFit } from './leakage.ts';
+import { LEAK_LOCATIONS, type HomeFile, type LeakLocation, type LeakShares } from './schema.ts';
+
+/** CFM50 at each leak location; their sum is the house's CFM50. */
+export type LeakageByLocation = Readonly<Record<LeakLocation, number>>;
+
+/**
+ * Leak shares assumed when the home file gives none: half the leakage in the walls, a quarter
+ * each in ceiling and floor (R = 0.5, X = 0), no flue. This is the distribution behind ASHRAE's
+ * tabulated enhanced-model coefficients (ASHRAE HoF ventilation and infiltration chapter).
+ */
+export const DEFAULT_LEAK_SHARES: LeakShares = { ceiling: 0.25, wall: 0.5, floor: 0.25, flue: 0 };
+
+/** Fan power when none is given, W/cfm. From memory: efficient bath fans move about 3 cfm/W. */
+export const DEFAULT_FAN_WATTS_PER_CFM = 0.33;
+
+/** Indoor temperatures assumed when a season gives none, °F. Common practice. */
+const DEFAULT_INDOOR_HEATING_F = 68;
+const DEFAULT_INDOOR_COOLING_F = 75;
+
+/** The 62.2 check for one leakage level. */
+export interface VentilationNeed {
+  requiredCfm: number;
+  /** 62.2 effective annual infiltration credited; 0 when no wsf is known. */
+  infiltrationCfm: number;
+  fanNeedCfm: number;
+  infiltrationCreditTaken: boolean;
+}
+
+export interface HomeModel {
+  readonly home: HomeFile;
+  readonly exponentN: number;
+  readonly testIn: LeakageByLocation;
+  readonly testInCfm50: number;
+  /** The leakage the plan may not go below, CFM50. */
+  readonly floorCfm50: number;
+  readonly energyContext: EnergyContext;
+  /** Fan flow the house already runs continuously, cfm. */
+  readonly existingFanCfm: number;
+  /** Natural infiltration of a leakage state, by season. */
+  airflow(leakage: LeakageByLocation): SeasonalAirflowCfm;
+  /** The energy of seasonal air flows, with fans using `ventilationFanKwh`. */
+  energy(airflow: SeasonalAirflowCfm, ventilationFanKwh?: number): AnnualEnergy;
+  /** The 62.2 check at a leakage level. */
+  ventilation(cfm50: number): VentilationNeed;
+  /**
+   * The year's energy of a leakage state with the ventilation 62.2 asks for at that level:
+   * infiltration combined with the fan flow (the larger of the fans the house runs and the
+   * 62.2 fan need), plus the power of the fan flow beyond the existing fans. Valuing every
+   * step this way charges each measure with the ventilation its tightening calls for.
+   */
+  energyOf(leakage: LeakageByLocation): AnnualEnergy;
+}
+
+/** Total CFM50 of a leakage state. */
+export function totalCfm50(leakage: LeakageByLocation): number {
+  return LEAK_LOCATIONS.reduce((total, location) => total + leakage[location], 0);
+}
+
+/**
+ * Leak shares to assume when the home file gives none: the default split, adjusted so each
+ * location holds at least what the work scope expects to remove there. An auditor who writes
+ * "fireplace damper: 200 CFM50" has seen a leak at the flue; the assumption must not deny it.
+ *
+ * @param options.cfm50 - test-in CFM50
+ * @param options.expectedByLocation - Σ of the likely CFM50 reductions of the measures at
+ *   each location (those estimated directly or by units)
+ * @returns shares summing to 1
+ */
+export function assumedLeakShares(options: {
+  cfm50: number;
+  expectedByLocation: Readonly<Partial<Record<LeakLocation, number>>>;
+}): LeakShares {
+  const { cfm50, expectedByLocation } = options;
+  if (cfm50 <= 0) return { ...DEFAULT_LEAK_SHARES };
+  const expectedShare = (location: LeakLocation) =>
+    Math.max(0, expectedByLocation[location] ?? 0) / cfm50;
+  const totalExpected = LEAK_LOCATIONS.reduce((sum, location) => sum + expectedShare(location), 0);
+  if (totalExpected >= 1) {
+    // The scope expects to remove everything: split by what it expects at each location.
+    return Object.fromEntries(
+      LEAK_LOCATIONS.map((location) => [location, expectedShare(location) / totalExpected]),
+    ) as LeakShares;
+  }
+  // Locations the scope needs more of are raised to what it expects; the others share what
+  // is left in the default proportions.
+  const raised = LEAK_LOCATIONS.filter(
+    (location) => expectedShare(location) > DEFAULT_LEAK_SHARES[location],
+  );
+  const raisedTotal = raised.reduce((sum, location) => sum + expectedShare(location), 0);
+  const others = LEAK_LOCATIONS.filter((location) => !raised.includes(location));
+  const othersDefault = others.reduce((sum, location) => sum + DEFAULT_LEAK_SHARES[location], 0);
+  if (othersDefault === 0) {
+    return Object.fromEntries(
+      LEAK_LOCATIONS.map((location) => [location, expectedShare(location) / totalExpected]),
+    ) as LeakShares;
+  }
+  return Object.fromEntries(
+    LEAK_LOCATIONS.map((location) => [
+      location,
+      raised.includes(location)
+        ? expectedShare(location)
+        : (DEFAULT_LEAK_SHARES[location] / othersDefault) * (1 - raisedTotal),
+    ]),
+  ) as LeakShares;
+}
+
+/**
+ * Builds the model of a parsed home from its test-in fit.
+ *
+ * @param leakShares - where the test-in leakage is; the home file's own when it gives them
+ */
+export function buildHomeModel(
+  home: HomeFile,
+  testIn: LeakageFit,
+  leakShares: LeakShares,
+): HomeModel {
+  const shares = leakShares;
+  const testInByLocation = Object.fromEntries(
+    LEAK_LOCATIONS.map((location) => [location, testIn.cfm50 * shares[location]]),
+  ) as Record<LeakLocation, number>;
+  const exponentN = testIn.exponentN;
+  const airflowOf = seasonalAirflowMethod(home, exponentN);
+  const energyContext: EnergyContext = {
+    climate: home.climate,
+    heating: home.heating,
+    cooling: home.cooling ?? null,
+    electricityKgCo2PerKwh: home.emissions?.electricityKgCo2PerKwh ?? 0,
+  };
+  const requiredCfm = requiredVentilationCfm({
+    floorAreaFt2: home.house.conditionedFloorAreaFt2,
+    bedrooms: home.house.bedrooms,
+  });
+  const balanced = home.ventilation?.fanType === 'balanced';
+  const wsf = home.climate.wsf;
+  const existingFanCfm = home.ventilation?.existingFanCfm ?? 0;
+  const fanWattsPerCfm = home.ventilation?.fanWattsPerCfm ?? DEFAULT_FAN_WATTS_PER_CFM;
+  const hasCooling = Boolean(home.cooling);
+
+  const ventilation = (cfm50: number): VentilationNeed => {
+    const infiltrationCfm =
+      wsf === undefined
+        ? 0
+        : effectiveAnnualInfiltrationCfm({ cfm50, wsf, heightFt: home.house.heightFt });
+    return {
+      requiredCfm,
+      infiltrationCfm,
+      fanNeedCfm: ventilationFanNeedCfm({ requiredCfm, infiltrationCfm, balanced }),
+      infiltrationCreditTaken: wsf !== undefined,
+    };
+  };
+  const withFan = (infiltrationCfm: number, fanCfm: number) =>
+    fanCfm === 0
+      ? infiltrationCfm
+      : combinedAirflowCfm({
+          infiltrationCfm,
+          balancedFanCfm: balanced ? fanCfm : 0,
+          unbalancedFanCfm: balanced ? 0 : fanCfm,
+        });
+
+  return {
+    home,
+    exponentN,
+    testIn: testInByLocation,
+    testInCfm50: testIn.cfm50,
+    floorCfm50: Math.min(home.leakageFloorCfm50 ?? 0, testIn.cfm50),
+    energyContext,
+    existingFanCfm,
+    airflow: airflowOf,
+    energy: (airflow, ventilationFanKwh = 0) =>
+      annualEnergyOfAirflow(energyContext, airflow, ventilationFanKwh),
+    ventilation,
+    energyOf(leakage) {
+      const infiltration = airflowOf(leakage);
+      const fanCfm = Math.max(existingFanCfm, ventilation(totalCfm50(leakage)).fanNeedCfm);
+      const addedFanKwh = ((fanCfm - existingFanCfm) * fanWattsPerCfm * HOURS_PER_YEAR) / 1000;
+      return annualEnergyOfAirflow(
+        energyContext,
+        {
+          heatingCfm: withFan(infiltration.heatingCfm, fanCfm),
+          coolingCfm: hasCooling ? withFan(infiltration.coolingCfm, fanCfm) : 0,
+        },
+        addedFanKwh,
+      );
+    },
+  };
+}
+
+/** The chosen infiltration method as a function of the leakage state. */
+function seasonalAirflowMethod(
+  home: HomeFile,
+  exponentN: number,
+): (leakage: LeakageByLocation) => SeasonalAirflowCfm {
+  const { house, climate } = home;
+  const volumeFt3 = house.conditionedVolumeFt3;
+  const hasCooling = Boolean(home.cooling);
+
+  switch (home.infiltrationMethod) {
+    case 'nFactor': {
+      const nFactor =
+        home.nFactorOverride ??
+        lblNFactor({
+          zone: requireValue(climate.nFactorZone, 'climate.nFactorZone'),
+          stories: house.stories,
+          shielding: shieldingForShelterClass(house.shelterClass),
+        });
+      return (leakage) => {
+        const { cfmNatural } = nFactorInfiltration({
+          cfm50: totalCfm50(leakage),
+          volumeFt3,
+          nFactor,
+        });
+        return { heatingCfm: cfmNatural, coolingCfm: hasCooling ? cfmNatural : 0 };
+      };
+    }
+    case 'lblBasic': {
+      const heatingSeason = requireValue(climate.heatingSeason, 'climate.heatingSeason');
+      const coolingSeason = climate.coolingSeason;
+      const flowAt = (ela: number, season: { meanDeltaTF: number; meanWindSpeedMph: number }) =>
+        lblBasicInfiltration({
+          elaIn2: ela,
+          stories: house.stories,
+          shelterClass: house.shelterClass,
+          deltaTF: season.meanDeltaTF,
+          windSpeedMph: season.meanWindSpeedMph,
+          volumeFt3,
+        }).cfmNatural;
+      return (leakage) => {
+        const ela = elaIn2(totalCfm50(leakage), exponentN);
+        return {
+          heatingCfm: flowAt(ela, heatingSeason),
+          coolingCfm: hasCooling && coolingSeason ? flowAt(ela, coolingSeason) : 0,
+        };
+      };
+    }
+    case 'aim2': {
+      const heatingSeason = requireValue(climate.heatingSeason, 'climate.heatingSeason');
+      const coolingSeason = climate.coolingSeason;
+      const flowAt = (
+        leakage: LeakageByLocation,
+        season: { meanDeltaTF: number; meanWindSpeedMph: number; indoorTempF?: number | undefined },
+        indoorDefaultF: number,
+      ) => {
+        const cfm50 = totalCfm50(leakage);
+        if (cfm50 <= 0) return 0;
+        return aim2Infiltration({
+          coefficientCfmPerPaN: cfm50 / 50 ** exponentN,
+          exponentN,
+          leakShares: {
+            ceiling: leakage.ceiling / cfm50,
+            wall: leakage.wall / cfm50,
+            floor: leakage.floor / cfm50,
+            flue: leakage.flue / cfm50,
+          },
+          heightFt: house.heightFt,
+          indoorTempF: season.indoorTempF ?? indoorDefaultF,
+          deltaTF: season.meanDeltaTF,
+          windSpeedMph: season.meanWindSpeedMph,
+          shelterClass: house.shelterClass,
+          foundation: house.foundation,
+          volumeFt3,
+        }).cfmNatural;
+      };
+      return (leakage) => ({
+        heatingCfm: flowAt(leakage, heatingSeason, DEFAULT_INDOOR_HEATING_F),
+        coolingCfm:
+          hasCooling && coolingSeason
+            ? flowAt(leakage, coolingSeason, DEFAULT_INDOOR_COOLING_F)
+            : 0,
+      });
+    }
+    case 'ashrae622': {
+      const wsf = requireValue(climate.wsf, 'climate.wsf');
+      return (leakage) => {
+        const cfm = effectiveAnnualInfiltrationCfm({
+          cfm50: totalCfm50(leakage),
+          wsf,
+          heightFt: house.heightFt,
+        });
+        return { heatingCfm: cfm, coolingCfm: hasCooling ? cfm : 0 };
+      };
+    }
+  }
+}
+
+function requireValue<T>(value: T | undefined, path: string): T {
+  if (value === undefined)
+    throw InputError.at(path, 'is required by the chosen infiltration method');
+  return value;
+}

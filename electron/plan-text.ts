@@ -1,0 +1,129 @@
+/**
+ * The plan as text for a terminal: the house's leakage, the ranked measures, the package and
+ * the cautions, in aligned columns.
+ */
+import { formatNumber, formatRatio, formatUsd, formatYears } from '../core/format.ts';
+import type { EvaluationReport } from '../core/report.ts';
+
+interface Column {
+  title: string;
+  align: 'left' | 'right';
+}
+
+/** Lays out rows under titles, each column as wide as its widest cell. */
+export function textTable(columns: readonly Column[], rows: readonly string[][]): string {
+  const widths = columns.map((column, index) =>
+    Math.max(column.title.length, ...rows.map((row) => (row[index] ?? '').length)),
+  );
+  const line = (cells: readonly string[]) =>
+    columns
+      .map((column, index) => {
+        const cell = cells[index] ?? '';
+        const width = widths[index] ?? 0;
+        return column.align === 'right' ? cell.padStart(width) : cell.padEnd(width);
+      })
+      .join('  ')
+      .trimEnd();
+  const rule = widths.map((width) => '─'.repeat(width)).join('  ');
+  return [line(columns.map((column) => column.title)), rule, ...rows.map(line)].join('\n');
+}
+
+const SEVERITY_WORDS: Record<string, string> = {
+  danger: 'DANGER ',
+  warning: 'WARNING',
+  notice: 'NOTICE ',
+};
+
+/** The whole plan of one home as text. */
+export function planText(report: EvaluationReport): string {
+  const { leakage, infiltration, package: pkg } = report;
+  const unit = pkg.annualSavings.heatingFuelUnit;
+  const lines: string[] = [];
+  lines.push(report.name);
+  lines.push('');
+  lines.push(
+    `Leak test   ${formatNumber(leakage.cfm50)} CFM50   ${formatNumber(leakage.ach50, 1)} ACH50   ` +
+      `ELA ${formatNumber(leakage.elaIn2, 0)} in²   n ${formatNumber(leakage.exponentN, 2)}` +
+      (leakage.rSquared === null ? '' : `   R² ${formatNumber(leakage.rSquared, 3)}`),
+  );
+  lines.push(
+    `Natural     ${formatNumber(infiltration.cfmNatural, 0)} cfm   ${formatNumber(infiltration.achNatural, 2)} ACHnat ` +
+      `(${infiltration.method}, heating season)`,
+  );
+  for (const warning of leakage.warnings) lines.push(`  ! ${warning.message}`);
+  lines.push('');
+
+  const rows = report.measures.map((measure) => [
+    measure.included ? String(measure.rank) : '–',
+    measure.id,
+    measure.name,
+    formatNumber(measure.cfm50Reduction),
+    formatUsd(measure.annualSavings.usd),
+    formatUsd(measure.costUsd),
+    formatUsd(measure.npvUsd),
+    measure.healthAndSafety ? 'H&S' : formatRatio(measure.sir) + (measure.sirBelowOne ? ' <1' : ''),
+    formatYears(measure.simplePaybackYears),
+  ]);
+  lines.push(
+    textTable(
+      [
+        { title: '#', align: 'right' },
+        { title: 'Measure', align: 'left' },
+        { title: 'Type', align: 'left' },
+        { title: 'CFM50 cut', align: 'right' },
+        { title: 'Saves/yr', align: 'right' },
+        { title: 'Cost', align: 'right' },
+        { title: 'NPV', align: 'right' },
+        { title: 'SIR', align: 'right' },
+        { title: 'Payback', align: 'right' },
+      ],
+      rows,
+    ),
+  );
+  lines.push('');
+  lines.push(
+    `Ranked by ${report.ranking}; measures marked – are left out of the package (SIR below 1 or declined).`,
+  );
+  lines.push('');
+  lines.push(
+    `Package     ${formatNumber(pkg.cfm50Before)} → ${formatNumber(pkg.cfm50After)} CFM50 ` +
+      `(${formatNumber(pkg.ach50After, 1)} ACH50 after)`,
+  );
+  lines.push(
+    `            saves ${formatUsd(pkg.annualSavingsUsd)}/yr (range ${formatUsd(pkg.annualSavingsUsdRange.low)}–` +
+      `${formatUsd(pkg.annualSavingsUsdRange.high)}), ${formatNumber(pkg.annualSavings.heatingFuelUnits, 1)} ${unit}` +
+      `, ${formatNumber(pkg.annualSavings.coolingKwh, 0)} kWh cooling, ${formatNumber(pkg.annualSavings.co2Kg, 0)} kg CO2`,
+  );
+  lines.push(
+    `            costs ${formatUsd(pkg.costUsd, { cents: true })}; NPV ${formatUsd(pkg.npvUsd, { cents: true })}; ` +
+      `SIR ${formatRatio(pkg.sir)}; payback ${formatYears(pkg.simplePaybackYears)}`,
+  );
+  const vent = pkg.ventilation;
+  lines.push(
+    `Ventilation 62.2 needs ${formatNumber(vent.requiredCfm)} cfm; infiltration credit ${formatNumber(vent.infiltrationCfm)} cfm; ` +
+      `fan need ${formatNumber(vent.fanCfm)} cfm` +
+      (vent.fanAdded
+        ? `: the package adds a ${formatNumber(vent.addedFanCfm)} cfm fan (${formatUsd(vent.fanCostUsd)}, ${formatUsd(vent.fanAnnualCostUsd)}/yr to run)`
+        : ''),
+  );
+  if (pkg.financing) {
+    const loan = pkg.financing;
+    lines.push(
+      `Financing   ${formatUsd(loan.monthlyPaymentUsd, { cents: true })}/month for ${loan.months} months against ` +
+        `${formatUsd(loan.monthlySavingsUsd, { cents: true })}/month saved`,
+    );
+  }
+  if (report.cautions.length > 0) {
+    lines.push('');
+    lines.push('Safety');
+    for (const caution of report.cautions) {
+      lines.push(`  ${SEVERITY_WORDS[caution.severity] ?? caution.severity}  ${caution.message}`);
+    }
+  }
+  if (report.notes.length > 0) {
+    lines.push('');
+    lines.push('Assumptions');
+    for (const note of report.notes) lines.push(`  · ${note}`);
+  }
+  return lines.join('\n');
+}
