@@ -12,7 +12,7 @@ import {
   SEA_LEVEL_PRESSURE_PA,
   SEA_LEVEL_PRESSURE_PSIA,
 } from './constants.ts';
-import { InputError } from './errors.ts';
+import { requireInRange } from './_lib/checks.ts';
 
 /**
  * Coefficients of the standard-atmosphere pressure fit, ASHRAE HoF 2017 ch. 1 eq. 3:
@@ -58,18 +58,6 @@ const DRY_BULB_BOUNDS_C = { min: -73, max: 93, unit: '°C' };
  */
 const PRESSURE_BOUNDS_PSIA = { min: 3, max: 30, unit: 'psia' };
 const PRESSURE_BOUNDS_PA = { min: 20_000, max: 210_000, unit: 'Pa' };
-
-interface Bounds {
-  min: number;
-  max: number;
-  unit: string;
-}
-
-function requireInRange(path: string, value: number, { min, max, unit }: Bounds): void {
-  if (!Number.isFinite(value) || value < min || value > max) {
-    throw InputError.at(path, `expected a number from ${min} to ${max} ${unit}, got ${value}`);
-  }
-}
 
 /**
  * Standard-atmosphere barometric pressure at an elevation, in psia.

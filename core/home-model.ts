@@ -9,8 +9,6 @@ import {
   type EnergyContext,
   type SeasonalAirflowCfm,
 } from './energy.ts';
-import { InputError } from './errors.ts';
-import { aim2Infiltration } from './infiltration/aim2.ts';
 import { HOURS_PER_YEAR } from './constants.ts';
 import {
   combinedAirflowCfm,
@@ -18,14 +16,9 @@ import {
   requiredVentilationCfm,
   ventilationFanNeedCfm,
 } from './infiltration/ashrae-622.ts';
-import { lblBasicInfiltration } from './infiltration/lbl-basic.ts';
-import {
-  lblNFactor,
-  nFactorInfiltration,
-  shieldingForShelterClass,
-} from './infiltration/n-factor.ts';
-import { elaIn2, type LeakageFit } from './leakage.ts';
+import type { LeakageFit } from './leakage.ts';
 import { LEAK_LOCATIONS, type HomeFile, type LeakLocation, type LeakShares } from './schema.ts';
+import { seasonalAirflowMethod } from './seasonal-airflow.ts';
 
 /** CFM50 at each leak location; their sum is the house's CFM50. */
 export type LeakageByLocation = Readonly<Record<LeakLocation, number>>;
@@ -39,10 +32,6 @@ export const DEFAULT_LEAK_SHARES: LeakShares = { ceiling: 0.25, wall: 0.5, floor
 
 /** Fan power when none is given, W/cfm. From memory: efficient bath fans move about 3 cfm/W. */
 export const DEFAULT_FAN_WATTS_PER_CFM = 0.33;
-
-/** Indoor temperatures assumed when a season gives none, °F. Common practice. */
-const DEFAULT_INDOOR_HEATING_F = 68;
-const DEFAULT_INDOOR_COOLING_F = 75;
 
 /** The 62.2 check for one leakage level. */
 export interface VentilationNeed {
@@ -210,107 +199,4 @@ export function buildHomeModel(
       );
     },
   };
-}
-
-/** The chosen infiltration method as a function of the leakage state. */
-function seasonalAirflowMethod(
-  home: HomeFile,
-  exponentN: number,
-): (leakage: LeakageByLocation) => SeasonalAirflowCfm {
-  const { house, climate } = home;
-  const volumeFt3 = house.conditionedVolumeFt3;
-  const hasCooling = Boolean(home.cooling);
-
-  switch (home.infiltrationMethod) {
-    case 'nFactor': {
-      const nFactor =
-        home.nFactorOverride ??
-        lblNFactor({
-          zone: requireValue(climate.nFactorZone, 'climate.nFactorZone'),
-          stories: house.stories,
-          shielding: shieldingForShelterClass(house.shelterClass),
-        });
-      return (leakage) => {
-        const { cfmNatural } = nFactorInfiltration({
-          cfm50: totalCfm50(leakage),
-          volumeFt3,
-          nFactor,
-        });
-        return { heatingCfm: cfmNatural, coolingCfm: hasCooling ? cfmNatural : 0 };
-      };
-    }
-    case 'lblBasic': {
-      const heatingSeason = requireValue(climate.heatingSeason, 'climate.heatingSeason');
-      const coolingSeason = climate.coolingSeason;
-      const flowAt = (ela: number, season: { meanDeltaTF: number; meanWindSpeedMph: number }) =>
-        lblBasicInfiltration({
-          elaIn2: ela,
-          stories: house.stories,
-          shelterClass: house.shelterClass,
-          deltaTF: season.meanDeltaTF,
-          windSpeedMph: season.meanWindSpeedMph,
-          volumeFt3,
-        }).cfmNatural;
-      return (leakage) => {
-        const ela = elaIn2(totalCfm50(leakage), exponentN);
-        return {
-          heatingCfm: flowAt(ela, heatingSeason),
-          coolingCfm: hasCooling && coolingSeason ? flowAt(ela, coolingSeason) : 0,
-        };
-      };
-    }
-    case 'aim2': {
-      const heatingSeason = requireValue(climate.heatingSeason, 'climate.heatingSeason');
-      const coolingSeason = climate.coolingSeason;
-      const flowAt = (
-        leakage: LeakageByLocation,
-        season: { meanDeltaTF: number; meanWindSpeedMph: number; indoorTempF?: number | undefined },
-        indoorDefaultF: number,
-      ) => {
-        const cfm50 = totalCfm50(leakage);
-        if (cfm50 <= 0) return 0;
-        return aim2Infiltration({
-          coefficientCfmPerPaN: cfm50 / 50 ** exponentN,
-          exponentN,
-          leakShares: {
-            ceiling: leakage.ceiling / cfm50,
-            wall: leakage.wall / cfm50,
-            floor: leakage.floor / cfm50,
-            flue: leakage.flue / cfm50,
-          },
-          heightFt: house.heightFt,
-          indoorTempF: season.indoorTempF ?? indoorDefaultF,
-          deltaTF: season.meanDeltaTF,
-          windSpeedMph: season.meanWindSpeedMph,
-          shelterClass: house.shelterClass,
-          foundation: house.foundation,
-          volumeFt3,
-        }).cfmNatural;
-      };
-      return (leakage) => ({
-        heatingCfm: flowAt(leakage, heatingSeason, DEFAULT_INDOOR_HEATING_F),
-        coolingCfm:
-          hasCooling && coolingSeason
-            ? flowAt(leakage, coolingSeason, DEFAULT_INDOOR_COOLING_F)
-            : 0,
-      });
-    }
-    case 'ashrae622': {
-      const wsf = requireValue(climate.wsf, 'climate.wsf');
-      return (leakage) => {
-        const cfm = effectiveAnnualInfiltrationCfm({
-          cfm50: totalCfm50(leakage),
-          wsf,
-          heightFt: house.heightFt,
-        });
-        return { heatingCfm: cfm, coolingCfm: hasCooling ? cfm : 0 };
-      };
-    }
-  }
-}
-
-function requireValue<T>(value: T | undefined, path: string): T {
-  if (value === undefined)
-    throw InputError.at(path, 'is required by the chosen infiltration method');
-  return value;
 }

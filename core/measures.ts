@@ -20,6 +20,8 @@ export interface MeasureCost {
   laborUsd: Decimal;
   markupUsd: Decimal;
   totalUsd: Decimal;
+  /** The total as float64, for ranking candidates quickly. */
+  totalUsdFloat: number;
   healthAndSafety: boolean;
 }
 
@@ -98,11 +100,13 @@ export function measureCost(cost: Measure['cost']): MeasureCost {
   const materialsUsd = roundToCents(usd(cost.materialsUsd));
   const laborUsd = roundToCents(usd(cost.laborHours).times(cost.laborRateUsdPerHour));
   const markupUsd = roundToCents(materialsUsd.plus(laborUsd).times(cost.markupFraction ?? 0));
+  const totalUsd = materialsUsd.plus(laborUsd).plus(markupUsd);
   return {
     materialsUsd,
     laborUsd,
     markupUsd,
-    totalUsd: materialsUsd.plus(laborUsd).plus(markupUsd),
+    totalUsd,
+    totalUsdFloat: totalUsd.toNumber(),
     healthAndSafety: cost.healthAndSafety ?? false,
   };
 }

@@ -138,9 +138,12 @@ function moneyOrNull(value: Decimal | null): number | null {
   return value === null ? null : centsToNumber(value);
 }
 
-/** A ratio or a number of years to four decimals: plenty for a report, stable in tests. */
-function ratio(value: Decimal | null): number | null {
-  return value === null ? null : value.toDecimalPlaces(4).toNumber();
+/** A ratio, a rate or a number of years to four decimals: plenty for a report. */
+function ratio(value: Decimal | number | null): number | null {
+  if (value === null) return null;
+  return typeof value === 'number'
+    ? Math.round(value * 1e4) / 1e4
+    : value.toDecimalPlaces(4).toNumber();
 }
 
 function measureReport(entry: PlanEntry, heatingFuelUnit: string): MeasureReport {

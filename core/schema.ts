@@ -97,6 +97,10 @@ const houseSchema = z.strictObject({
   foundation: z.enum(FOUNDATIONS),
   yearBuilt: z.int().min(1600).max(2100),
   envelopeAreaFt2: z.number().positive().max(500_000).optional(),
+  /** Height of the top of the chimney or flue above grade (enhanced model), ft. */
+  flueHeightFt: z.number().positive().max(200).optional(),
+  /** The land around the house, for the wind at its eaves (enhanced model). */
+  siteTerrain: z.enum(['open', 'suburban']).optional(),
   knobAndTubeWiring: z.boolean().optional(),
   vermiculiteSuspected: z.boolean().optional(),
 });

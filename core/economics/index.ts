@@ -22,8 +22,8 @@ export {
   simplePaybackYears,
   discountedPaybackYears,
   costOfSavedEnergy,
-  internalRateOfReturn,
 } from './measures-of-worth.ts';
+export { internalRateOfReturn } from './internal-rate-of-return.ts';
 export type {
   SavingsAndInvestment,
   AdjustedRateOptions,

@@ -5,6 +5,7 @@
  * This is the safety side of air sealing: every cfm sealed is a cfm a fan may have to make
  * up, and a tight house with no ventilation is a health problem, not a success.
  */
+import { requireNonNegative, requirePositive } from '../_lib/checks.ts';
 import { InputError } from '../errors.ts';
 
 /** Floor-area and occupant rates of the total ventilation rate. Published: 62.2 §4.1. */
@@ -26,18 +27,6 @@ const HEIGHT_EXPONENT = 0.4;
  * yet model them.
  */
 const EXPOSED_ENVELOPE_SHARE_DETACHED = 1;
-
-function requireAtLeastZero(path: string, value: number): void {
-  if (!Number.isFinite(value) || value < 0) {
-    throw InputError.at(path, `expected a number of at least 0, got ${value}`);
-  }
-}
-
-function requirePositive(path: string, value: number): void {
-  if (!Number.isFinite(value) || value <= 0) {
-    throw InputError.at(path, `expected a number greater than 0, got ${value}`);
-  }
-}
 
 /**
  * Total ventilation rate a dwelling needs.
@@ -87,7 +76,7 @@ export function effectiveAnnualInfiltrationCfm(options: {
   wsf: number;
   heightFt: number;
 }): number {
-  requireAtLeastZero('cfm50', options.cfm50);
+  requireNonNegative('cfm50', options.cfm50);
   requirePositive('wsf', options.wsf);
   requirePositive('heightFt', options.heightFt);
   return (
@@ -119,7 +108,7 @@ export function ventilationFanNeedCfm(options: {
 }): number {
   const { requiredCfm, infiltrationCfm } = options;
   requirePositive('requiredCfm', requiredCfm);
-  requireAtLeastZero('infiltrationCfm', infiltrationCfm);
+  requireNonNegative('infiltrationCfm', infiltrationCfm);
   const superposition = options.balanced ? 1 : infiltrationCfm / requiredCfm;
   return Math.max(
     0,
@@ -147,8 +136,8 @@ export function combinedAirflowCfm(options: {
   balancedFanCfm: number;
   unbalancedFanCfm: number;
 }): number {
-  requireAtLeastZero('infiltrationCfm', options.infiltrationCfm);
-  requireAtLeastZero('balancedFanCfm', options.balancedFanCfm);
-  requireAtLeastZero('unbalancedFanCfm', options.unbalancedFanCfm);
+  requireNonNegative('infiltrationCfm', options.infiltrationCfm);
+  requireNonNegative('balancedFanCfm', options.balancedFanCfm);
+  requireNonNegative('unbalancedFanCfm', options.unbalancedFanCfm);
   return options.balancedFanCfm + Math.hypot(options.unbalancedFanCfm, options.infiltrationCfm);
 }

@@ -12,6 +12,7 @@ import {
   MINUTES_PER_HOUR,
   SQUARE_CM_PER_SQUARE_INCH,
 } from '../constants.ts';
+import { requireAtLeast, requireNonNegative, requirePositive } from '../_lib/checks.ts';
 import { InputError } from '../errors.ts';
 import type { NaturalInfiltration, ShelterClass } from './n-factor.ts';
 
@@ -44,12 +45,6 @@ const FLOW_PER_AREA_SI_TO_IP = SQUARE_CM_PER_SQUARE_INCH / LITERS_PER_SECOND_PER
 /** A temperature difference of 1 °F is 1/1.8 K. Exact by definition. */
 const KELVIN_PER_FAHRENHEIT_DEGREE = 1 / 1.8;
 
-function requireStories(stories: number): void {
-  if (!Number.isFinite(stories) || stories < 1) {
-    throw InputError.at('stories', `expected a number of at least 1, got ${stories}`);
-  }
-}
-
 function windRow(shelterClass: ShelterClass): readonly number[] {
   const row = WIND_COEFFICIENT_SI_BY_CLASS[shelterClass];
   if (row === undefined) {
@@ -79,7 +74,7 @@ function interpolateInStories(byStories: readonly number[], stories: number): nu
  * model stack coefficient); Sherman & Grimsrud 1980, ASHRAE Transactions 86(2).
  */
 export function lblStackCoefficientSi(stories: number): number {
-  requireStories(stories);
+  requireAtLeast('stories', stories, 1);
   return interpolateInStories(STACK_COEFFICIENT_SI_BY_STORIES, stories);
 }
 
@@ -100,7 +95,7 @@ export function lblStackCoefficientSi(stories: number): number {
  */
 export function lblWindCoefficientSi(shelterClass: ShelterClass, stories: number): number {
   const row = windRow(shelterClass);
-  requireStories(stories);
+  requireAtLeast('stories', stories, 1);
   return interpolateInStories(row, stories);
 }
 
@@ -139,12 +134,6 @@ export function lblWindCoefficientIp(shelterClass: ShelterClass, stories: number
   );
 }
 
-function requireAtLeastZero(path: string, value: number): void {
-  if (!Number.isFinite(value) || value < 0) {
-    throw InputError.at(path, `expected a number of at least 0, got ${value}`);
-  }
-}
-
 function requireFinite(path: string, value: number): void {
   if (!Number.isFinite(value)) {
     throw InputError.at(path, `expected a finite number, got ${value}`);
@@ -174,11 +163,11 @@ export function lblBasicFlowLps(options: {
   windSpeedMps: number;
 }): number {
   const { elaCm2, stackCoefficient, windCoefficient, deltaTK, windSpeedMps } = options;
-  requireAtLeastZero('elaCm2', elaCm2);
-  requireAtLeastZero('stackCoefficient', stackCoefficient);
-  requireAtLeastZero('windCoefficient', windCoefficient);
+  requireNonNegative('elaCm2', elaCm2);
+  requireNonNegative('stackCoefficient', stackCoefficient);
+  requireNonNegative('windCoefficient', windCoefficient);
   requireFinite('deltaTK', deltaTK);
-  requireAtLeastZero('windSpeedMps', windSpeedMps);
+  requireNonNegative('windSpeedMps', windSpeedMps);
   return (
     elaCm2 * Math.sqrt(stackCoefficient * Math.abs(deltaTK) + windCoefficient * windSpeedMps ** 2)
   );
@@ -208,11 +197,11 @@ export function lblBasicFlowCfm(options: {
   windSpeedMph: number;
 }): number {
   const { elaIn2, stackCoefficient, windCoefficient, deltaTF, windSpeedMph } = options;
-  requireAtLeastZero('elaIn2', elaIn2);
-  requireAtLeastZero('stackCoefficient', stackCoefficient);
-  requireAtLeastZero('windCoefficient', windCoefficient);
+  requireNonNegative('elaIn2', elaIn2);
+  requireNonNegative('stackCoefficient', stackCoefficient);
+  requireNonNegative('windCoefficient', windCoefficient);
   requireFinite('deltaTF', deltaTF);
-  requireAtLeastZero('windSpeedMph', windSpeedMph);
+  requireNonNegative('windSpeedMph', windSpeedMph);
   return (
     elaIn2 * Math.sqrt(stackCoefficient * Math.abs(deltaTF) + windCoefficient * windSpeedMph ** 2)
   );
@@ -243,9 +232,7 @@ export function lblBasicInfiltration(options: {
   volumeFt3: number;
 }): NaturalInfiltration {
   const { volumeFt3 } = options;
-  if (!Number.isFinite(volumeFt3) || volumeFt3 <= 0) {
-    throw InputError.at('volumeFt3', `expected a number greater than 0, got ${volumeFt3}`);
-  }
+  requirePositive('volumeFt3', volumeFt3);
   const cfmNatural = lblBasicFlowCfm({
     elaIn2: options.elaIn2,
     stackCoefficient: lblStackCoefficientIp(options.stories),

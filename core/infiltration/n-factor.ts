@@ -6,6 +6,7 @@
  * leaks are or of this season's weather. The user should always be able to override N.
  */
 import { MINUTES_PER_HOUR } from '../constants.ts';
+import { requireAtLeast, requireNonNegative, requirePositive } from '../_lib/checks.ts';
 import { InputError } from '../errors.ts';
 
 /** Wind shielding classes of the climate-factor table. */
@@ -72,9 +73,7 @@ export function lblNFactor(options: {
   if (row === undefined) {
     throw InputError.at('zone', `expected a climate zone 1, 2, 3 or 4, got ${options.zone}`);
   }
-  if (!Number.isFinite(options.stories) || options.stories < 1) {
-    throw InputError.at('stories', `expected a number of at least 1, got ${options.stories}`);
-  }
+  requireAtLeast('stories', options.stories, 1);
   const multiplier = SHIELDING_MULTIPLIER[options.shielding];
   if (multiplier === undefined) {
     throw InputError.at(
@@ -144,15 +143,9 @@ export function nFactorInfiltration(options: {
   nFactor: number;
 }): NaturalInfiltration {
   const { cfm50, volumeFt3, nFactor } = options;
-  if (!Number.isFinite(cfm50) || cfm50 < 0) {
-    throw InputError.at('cfm50', `expected a number of at least 0, got ${cfm50}`);
-  }
-  if (!Number.isFinite(volumeFt3) || volumeFt3 <= 0) {
-    throw InputError.at('volumeFt3', `expected a number greater than 0, got ${volumeFt3}`);
-  }
-  if (!Number.isFinite(nFactor) || nFactor <= 0) {
-    throw InputError.at('nFactor', `expected a number greater than 0, got ${nFactor}`);
-  }
+  requireNonNegative('cfm50', cfm50);
+  requirePositive('volumeFt3', volumeFt3);
+  requirePositive('nFactor', nFactor);
   const cfmNatural = cfm50 / nFactor;
   return { cfmNatural, achNatural: (cfmNatural * MINUTES_PER_HOUR) / volumeFt3 };
 }

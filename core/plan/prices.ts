@@ -11,6 +11,8 @@ import type { HomeFile } from '../schema.ts';
 
 interface FuelPrice {
   usdPerUnit: Decimal;
+  /** The same price as float64, for ranking candidates quickly. */
+  usdPerUnitFloat: number;
   escalationRateReal: number;
 }
 
@@ -40,6 +42,33 @@ export interface PriceBook {
   requireElectricity(reason: string): FuelPrice;
 }
 
+/**
+ * UPV* factors by (discount rate, escalation, life), shared by every home: a pure function of
+ * its key, so remembering it changes no result. Bounded, since keys come from user input.
+ */
+const FACTOR_CACHE = new Map<string, { exact: Decimal; float: number }>();
+const FACTOR_CACHE_LIMIT = 4096;
+
+function presentValueFactor(
+  discountRateReal: number,
+  escalationRateReal: number,
+  lifeYears: number,
+) {
+  const key = `${discountRateReal}|${escalationRateReal}|${lifeYears}`;
+  let cached = FACTOR_CACHE.get(key);
+  if (!cached) {
+    const exact = escalatedUniformPresentValueFactor({
+      discountRateReal,
+      escalationRateReal,
+      years: lifeYears,
+    });
+    cached = { exact, float: exact.toNumber() };
+    if (FACTOR_CACHE.size >= FACTOR_CACHE_LIMIT) FACTOR_CACHE.clear();
+    FACTOR_CACHE.set(key, cached);
+  }
+  return cached;
+}
+
 /** The price book of a parsed home. */
 export function buildPriceBook(home: HomeFile): PriceBook {
   const discountRateReal = home.economics.discountRateReal;
@@ -48,6 +77,7 @@ export function buildPriceBook(home: HomeFile): PriceBook {
     if (!price) return null;
     return {
       usdPerUnit: new Decimal(price.usdPerUnit),
+      usdPerUnitFloat: price.usdPerUnit,
       escalationRateReal: price.escalationRateReal ?? 0,
     };
   };
@@ -60,21 +90,8 @@ export function buildPriceBook(home: HomeFile): PriceBook {
   }
   const electricity = read('electricity');
 
-  const factorCache = new Map<string, { exact: Decimal; float: number }>();
-  const factor = (escalationRateReal: number, lifeYears: number) => {
-    const key = `${escalationRateReal}|${lifeYears}`;
-    let cached = factorCache.get(key);
-    if (!cached) {
-      const exact = escalatedUniformPresentValueFactor({
-        discountRateReal,
-        escalationRateReal,
-        years: lifeYears,
-      });
-      cached = { exact, float: exact.toNumber() };
-      factorCache.set(key, cached);
-    }
-    return cached;
-  };
+  const factor = (escalationRateReal: number, lifeYears: number) =>
+    presentValueFactor(discountRateReal, escalationRateReal, lifeYears);
   const electricityEscalation = electricity?.escalationRateReal ?? 0;
 
   return {

@@ -82,14 +82,14 @@ export interface QuickWorth {
 
 /** Quick float64 worth of a step, for ranking. Infinite SIR for a free measure that saves. */
 export function quickWorth(prices: PriceBook, outcome: StepOutcome): QuickWorth {
-  const heatingUsd = outcome.saved.heatingFuelUnits * prices.heating.usdPerUnit.toNumber();
+  const heatingUsd = outcome.saved.heatingFuelUnits * prices.heating.usdPerUnitFloat;
   const electricKwh = outcome.saved.coolingKwh + outcome.saved.ventilationFanKwh;
   const electricityUsd =
-    electricKwh === 0 ? 0 : electricKwh * (prices.electricity?.usdPerUnit.toNumber() ?? 0);
+    electricKwh === 0 ? 0 : electricKwh * (prices.electricity?.usdPerUnitFloat ?? 0);
   const annualUsd = heatingUsd + electricityUsd;
   const life = outcome.measure.lifeYears;
   const pvUsd = prices.presentValueFloat(heatingUsd, electricityUsd, life);
-  const costUsd = outcome.measure.cost.totalUsd.toNumber();
+  const costUsd = outcome.measure.cost.totalUsdFloat;
   const crf =
     prices.discountRateReal === 0
       ? 1 / life

@@ -7,6 +7,7 @@
  * appliance zone (CAZ) falls, and a natural-draft flue can spill or backdraft. That is
  * common practice, and the reason combustion safety test-out procedures exist.
  */
+import { formatNumber } from '../format.ts';
 import type { ApplianceKind } from '../schema.ts';
 import type { SafetyContext, FuelBurner } from './context.ts';
 import { makeCaution } from './definitions.ts';
@@ -60,7 +61,7 @@ export function combustionSafetyTestRule(context: SafetyContext): Caution | unde
   const inside = insideBurners(context);
   if (inside.length === 0 || !context.reducesLeakage) return undefined;
   const { cfm50Before, cfm50After } = context.input.leakage;
-  const facts = `The plan tightens the house from ${Math.round(cfm50Before)} to ${Math.round(cfm50After)} CFM50 with fuel-burning appliances inside: ${labels(inside)}.`;
+  const facts = `The plan tightens the house from ${formatNumber(cfm50Before)} to ${formatNumber(cfm50After)} CFM50 with fuel-burning appliances inside: ${labels(inside)}.`;
   const allSealed = inside.every((burner) => burner.venting === 'sealed');
   let severity: CautionSeverity = 'warning';
   if (inside.some(mayBeNaturalDraft)) severity = 'danger';

@@ -2,6 +2,7 @@
  * Rules about fresh air: the ASHRAE 62.2 fan need before and after the plan, the
  * infiltration credit, and how tight the plan leaves the house.
  */
+import { formatNumber } from '../format.ts';
 import type { SafetyContext } from './context.ts';
 import { makeCaution } from './definitions.ts';
 import type { Caution, CautionSeverity } from './types.ts';
@@ -60,7 +61,7 @@ export function ventilationNeededRule(context: SafetyContext): Caution | undefin
   } else if (context.ach50After < VENTILATION_DANGER_ACH50 && houseAirBurnerCount(context) > 0) {
     severity = 'danger';
     parts.push(
-      `At ${context.ach50After.toFixed(1)} ACH50, with fuel-burning appliances using house air, too little leakage is left to dilute combustion gases.`,
+      `At ${formatNumber(context.ach50After, 1)} ACH50, with fuel-burning appliances using house air, too little leakage is left to dilute combustion gases.`,
     );
   }
   return makeCaution('ventilation-needed', {
@@ -125,6 +126,6 @@ export function veryTightRule(context: SafetyContext): Caution | undefined {
   }
   return makeCaution('very-tight', {
     measureIds: context.planMeasureIds,
-    facts: `After the plan the house will test at about ${context.ach50After.toFixed(1)} ACH50, below the ${MECHANICAL_VENTILATION_ACH50} ACH50 under which the residential code calls for whole-house mechanical ventilation.`,
+    facts: `After the plan the house will test at about ${formatNumber(context.ach50After, 1)} ACH50, below the ${MECHANICAL_VENTILATION_ACH50} ACH50 under which the residential code calls for whole-house mechanical ventilation.`,
   });
 }

@@ -58,6 +58,7 @@ export const DEMO_HOMES: readonly HomeFileInput[] = [
       foundation: 'basement',
       yearBuilt: 1924,
       knobAndTubeWiring: true,
+      flueHeightFt: 30,
     },
     climate: ALDER_CREEK_CLIMATE,
     heating: {

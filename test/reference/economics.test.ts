@@ -561,3 +561,24 @@ describe('bad input', () => {
     expectInputError(() => internalRateOfReturn([-100, 50, NaN]), 'cashFlowsUsd[2]', /finite/);
   });
 });
+
+describe('internal rate of return to a reporting tolerance', () => {
+  it('agrees with the full Decimal search and with formulajs IRR', async () => {
+    const formulajs = await import('@formulajs/formulajs');
+    const { internalRateOfReturn } = await import('../../core/economics/index.ts');
+    for (const [cost, saving, years] of [
+      [500, 80, 15],
+      [1200, 95, 25],
+      [300, 150, 3],
+      [900, 40, 20],
+    ] as const) {
+      const flows = [-cost, ...Array.from({ length: years }, () => saving)];
+      const exact = internalRateOfReturn(flows);
+      const quick = internalRateOfReturn(flows, { toleranceRate: 1e-8 });
+      // @formulajs/formulajs IRR (Excel semantics) as the outside reference.
+      const reference = formulajs.IRR(flows) as number;
+      expect(quick?.toNumber()).toBeCloseTo(exact?.toNumber() ?? NaN, 7);
+      expect(quick?.toNumber()).toBeCloseTo(reference, 7);
+    }
+  });
+});
