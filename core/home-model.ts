@@ -177,7 +177,8 @@ export function buildHomeModel(
     home,
     exponentN,
     testIn: testInByLocation,
-    testInCfm50: testIn.cfm50,
+    // The sum of the parts, so every later figure is summed the same way.
+    testInCfm50: totalCfm50(testInByLocation),
     floorCfm50: Math.min(home.leakageFloorCfm50 ?? 0, testIn.cfm50),
     energyContext,
     existingFanCfm,

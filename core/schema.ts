@@ -8,8 +8,8 @@
  */
 import { z } from 'zod';
 import { InputError, type InputProblem } from './errors.ts';
-import { problemsFromZod } from './_lib/zod-problems.ts';
-import { findMeasureType, MEASURE_LIBRARY } from './measure-library.ts';
+import { formatPath, problemsFromZod } from './_lib/zod-problems.ts';
+import { crossFieldProblems } from './schema-rules.ts';
 
 export const HOME_FILE_FORMAT = 'sealwork-home/1';
 
@@ -130,7 +130,8 @@ const heatingSchema = z.strictObject({
   fuel: z.enum(FUELS),
   equipment: z.enum(HEATING_EQUIPMENT),
   /** AFUE or COP as a fraction; HSPF (Btu/Wh) for a heat pump. */
-  efficiency: z.number().positive().max(20),
+  // Bounded loosely here so a percentage typed by mistake (80) reaches the rule that explains it.
+  efficiency: z.number().positive().max(1000),
   distributionEfficiency: z.number().min(0.3).max(1).optional(),
   combustionVenting: z.enum(COMBUSTION_VENTING).optional(),
   /** Whether the appliance sits inside the pressure boundary (default: yes). */
@@ -270,16 +271,26 @@ export const homeFileSchema = z
       .optional(),
     measures: z.array(measureSchema).max(200),
   })
-  .check((ctx) => {
-    for (const problem of consistencyProblems(ctx.value)) {
-      ctx.issues.push({
-        code: 'custom',
-        input: ctx.value,
-        path: problem.path,
-        message: problem.message,
-      });
+  .superRefine(
+    (home, ctx) => {
+      for (const problem of crossFieldProblems(home, refusedPaths(ctx.issues))) {
+        ctx.addIssue({ code: 'custom', input: home, path: problem.path, message: problem.message });
+      }
+    },
+    // Run even when some fields were refused: each rule skips the fields that were.
+    { when: () => true },
+  );
+
+/** Paths zod has refused so far, unknown keys included as their own paths. */
+function refusedPaths(issues: readonly z.core.$ZodRawIssue[]): string[] {
+  return issues.flatMap((issue) => {
+    const path = formatPath(issue.path ?? []);
+    if (issue.code === 'unrecognized_keys') {
+      return (issue.keys as string[]).map((key) => (path === '' ? key : `${path}.${key}`));
     }
+    return [path];
   });
+}
 
 export type HomeFile = z.output<typeof homeFileSchema>;
 export type Measure = HomeFile['measures'][number];
@@ -289,153 +300,6 @@ export type Heating = HomeFile['heating'];
 export type Cooling = NonNullable<HomeFile['cooling']>;
 export type CombustionAppliance = NonNullable<HomeFile['combustionAppliances']>[number];
 export type LeakShares = NonNullable<HomeFile['leakShares']>;
-
-interface PathProblem {
-  path: (string | number)[];
-  message: string;
-}
-
-/** Rules that tie fields together; each problem points at the field to change. */
-function consistencyProblems(home: HomeFile): PathProblem[] {
-  const problems: PathProblem[] = [];
-  const { house, heating, climate } = home;
-
-  const meanCeilingFt = house.conditionedVolumeFt3 / house.conditionedFloorAreaFt2;
-  if (meanCeilingFt < 5 || meanCeilingFt > 30) {
-    problems.push({
-      path: ['house', 'conditionedVolumeFt3'],
-      message: `volume ÷ floor area gives a mean ceiling height of ${meanCeilingFt.toFixed(1)} ft; expected 5 to 30 ft`,
-    });
-  }
-
-  const electricOnly =
-    heating.equipment === 'heatPump' || heating.equipment === 'electricResistance';
-  if (electricOnly && heating.fuel !== 'electricity') {
-    problems.push({
-      path: ['heating', 'fuel'],
-      message: `expected "electricity" for a ${heating.equipment}`,
-    });
-  }
-  if (!electricOnly && heating.fuel === 'electricity') {
-    problems.push({
-      path: ['heating', 'equipment'],
-      message: 'expected "heatPump" or "electricResistance" for electric heating',
-    });
-  }
-  if (heating.equipment === 'heatPump') {
-    if (heating.efficiency < 3) {
-      problems.push({
-        path: ['heating', 'efficiency'],
-        message: `expected HSPF in Btu/Wh (3 to 20) for a heat pump, got ${heating.efficiency}`,
-      });
-    }
-  } else if (heating.efficiency > 1 || heating.efficiency < 0.3) {
-    problems.push({
-      path: ['heating', 'efficiency'],
-      message: `expected AFUE or COP as a fraction from 0.3 to 1 (0.8 for 80 %), got ${heating.efficiency}`,
-    });
-  }
-  if (
-    heating.fuel === 'electricity' &&
-    heating.combustionVenting &&
-    heating.combustionVenting !== 'none'
-  ) {
-    problems.push({
-      path: ['heating', 'combustionVenting'],
-      message: 'electric heating has no combustion venting; expected "none" or leave it out',
-    });
-  }
-
-  if (home.prices[heating.fuel] === undefined) {
-    problems.push({
-      path: ['prices', heating.fuel],
-      message: `is required: expected the price of the heating fuel { usdPerUnit }`,
-    });
-  }
-  const needsElectricity = Boolean(home.cooling) || heating.fuel === 'electricity';
-  if (needsElectricity && home.prices.electricity === undefined && heating.fuel !== 'electricity') {
-    problems.push({
-      path: ['prices', 'electricity'],
-      message: 'is required for cooling: expected { usdPerUnit } per kWh',
-    });
-  }
-
-  if (home.infiltrationMethod === 'nFactor' && home.nFactorOverride === undefined) {
-    if (climate.nFactorZone === undefined) {
-      problems.push({
-        path: ['climate', 'nFactorZone'],
-        message:
-          'is required for infiltrationMethod "nFactor" unless nFactorOverride is given: expected 1 to 4',
-      });
-    }
-  }
-  if (home.infiltrationMethod === 'lblBasic' || home.infiltrationMethod === 'aim2') {
-    if (climate.heatingSeason === undefined) {
-      problems.push({
-        path: ['climate', 'heatingSeason'],
-        message: `is required for infiltrationMethod "${home.infiltrationMethod}": expected { meanDeltaTF, meanWindSpeedMph }`,
-      });
-    }
-    if (Boolean(home.cooling) && climate.coolingSeason === undefined) {
-      problems.push({
-        path: ['climate', 'coolingSeason'],
-        message: `is required for infiltrationMethod "${home.infiltrationMethod}" with cooling: expected { meanDeltaTF, meanWindSpeedMph }`,
-      });
-    }
-  }
-  if (home.infiltrationMethod === 'ashrae622' && climate.wsf === undefined) {
-    problems.push({
-      path: ['climate', 'wsf'],
-      message:
-        'is required for infiltrationMethod "ashrae622": expected the weather and shielding factor of the nearest station (62.2 normative appendix)',
-    });
-  }
-
-  if (home.leakShares) {
-    const { ceiling, wall, floor, flue } = home.leakShares;
-    const total = ceiling + wall + floor + flue;
-    if (Math.abs(total - 1) > 0.001) {
-      problems.push({
-        path: ['leakShares'],
-        message: `expected ceiling + wall + floor + flue = 1, got ${total.toFixed(3)}`,
-      });
-    }
-  }
-
-  problems.push(...measureProblems(home.measures));
-  return problems;
-}
-
-function measureProblems(measures: readonly Measure[]): PathProblem[] {
-  const problems: PathProblem[] = [];
-  const seenIds = new Set<string>();
-  measures.forEach((measure, index) => {
-    if (seenIds.has(measure.id)) {
-      problems.push({
-        path: ['measures', index, 'id'],
-        message: `expected a unique id; "${measure.id}" is used twice`,
-      });
-    }
-    seenIds.add(measure.id);
-    if (!findMeasureType(measure.type)) {
-      problems.push({
-        path: ['measures', index, 'type'],
-        message: `expected a measure type from the library (${MEASURE_LIBRARY.map((t) => t.id).join(', ')}), got "${measure.type}"`,
-      });
-    }
-    const estimates = [measure.reductionCfm50, measure.byUnits, measure.shareOfLocation].filter(
-      (estimate) => estimate !== undefined,
-    );
-    if (estimates.length !== 1) {
-      problems.push({
-        path: ['measures', index],
-        message:
-          'expected exactly one estimate: reductionCfm50 { low, likely, high }, byUnits { units } or shareOfLocation { share }',
-      });
-    }
-  });
-  return problems;
-}
 
 /** Parses and checks a home file; throws `InputError` listing every problem found. */
 export function parseHomeFile(input: unknown): HomeFile {

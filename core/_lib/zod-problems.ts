@@ -116,7 +116,14 @@ export function problemsFromZod(error: z.ZodError, input: unknown): InputProblem
         }
         break;
       case 'invalid_format':
-        problems.push({ path, message: `expected ${issue.format} text, got ${given}` });
+        // A pattern carries the schema's own words for what was expected.
+        problems.push({
+          path,
+          message:
+            issue.format === 'regex'
+              ? `${issue.message}, got ${given}`
+              : `expected ${issue.format} text, got ${given}`,
+        });
         break;
       default:
         problems.push({ path, message: issue.message });
