@@ -28,6 +28,27 @@ export function textTable(columns: readonly Column[], rows: readonly string[][])
   return [line(columns.map((column) => column.title)), rule, ...rows.map(line)].join('\n');
 }
 
+/** Width the plan's prose is wrapped to, in characters. */
+const TEXT_WIDTH = 100;
+
+/** Wraps prose at word boundaries: the first line after `lead`, the rest under it. */
+export function wrapText(text: string, lead: string, width = TEXT_WIDTH): string {
+  const indent = ' '.repeat(lead.length);
+  const lines: string[] = [];
+  let line = lead;
+  for (const word of text.split(/\s+/).filter((w) => w !== '')) {
+    const fresh = line === lead || line === indent;
+    if (!fresh && line.length + 1 + word.length > width) {
+      lines.push(line);
+      line = indent + word;
+    } else {
+      line += (fresh ? '' : ' ') + word;
+    }
+  }
+  lines.push(line);
+  return lines.join('\n');
+}
+
 const SEVERITY_WORDS: Record<string, string> = {
   danger: 'DANGER ',
   warning: 'WARNING',
@@ -50,7 +71,7 @@ export function planText(report: EvaluationReport): string {
     `Natural     ${formatNumber(infiltration.cfmNatural, 0)} cfm   ${formatNumber(infiltration.achNatural, 2)} ACHnat ` +
       `(${infiltration.method}, heating season)`,
   );
-  for (const warning of leakage.warnings) lines.push(`  ! ${warning.message}`);
+  for (const warning of leakage.warnings) lines.push(wrapText(warning.message, '  ! '));
   lines.push('');
 
   const rows = report.measures.map((measure) => [
@@ -117,13 +138,14 @@ export function planText(report: EvaluationReport): string {
     lines.push('');
     lines.push('Safety');
     for (const caution of report.cautions) {
-      lines.push(`  ${SEVERITY_WORDS[caution.severity] ?? caution.severity}  ${caution.message}`);
+      const lead = `  ${SEVERITY_WORDS[caution.severity] ?? caution.severity}  `;
+      lines.push(wrapText(caution.message, lead));
     }
   }
   if (report.notes.length > 0) {
     lines.push('');
     lines.push('Assumptions');
-    for (const note of report.notes) lines.push(`  · ${note}`);
+    for (const note of report.notes) lines.push(wrapText(note, '  · '));
   }
   return lines.join('\n');
 }
