@@ -6,5 +6,6 @@ export default defineConfig({
     exclude: ['test/bench/**', 'node_modules/**'],
     pool: 'threads',
     testTimeout: 30_000,
+    reporters: ['default', './test/_reporters/plain-summary.ts'],
   },
 });
