@@ -135,6 +135,19 @@ function notesOf(home: HomeFile, model: HomeModel, plan: PlanResult): string[] {
   if (fan && home.ventilation?.fanCostUsd === undefined) {
     notes.push('Ventilation fan cost is a default; set ventilation.fanCostUsd for this job.');
   }
+  if (home.infiltrationMethod === 'aim2') {
+    const risen = plan.entries.filter(
+      ({ step }) =>
+        step.appliedCfm50 > 0 &&
+        model.airflow(step.leakageAfter).heatingCfm > model.airflow(step.leakageBefore).heatingCfm,
+    );
+    if (risen.length > 0) {
+      notes.push(
+        `The enhanced model gives more natural infiltration after ${risen.map((entry) => entry.step.measure.id).join(', ')} than before: ` +
+          'its closed-form factors are approximate when nearly all leakage is at the ceiling and floor. Check the leak shares, or compare with the LBL basic method.',
+      );
+    }
+  }
   for (const entry of plan.entries) {
     if (entry.step.limitedBy === 'floor') {
       notes.push(`${entry.step.measure.id}: reduction limited by the leakage floor.`);

@@ -24,5 +24,6 @@ export function sumUsd(amountsUsd: readonly Decimal[]): Decimal {
 
 /** A Decimal rounded to cents as a JSON-friendly number (for reports, never for arithmetic). */
 export function centsToNumber(amountUsd: Decimal): number {
-  return roundToCents(amountUsd).toNumber();
+  const cents = roundToCents(amountUsd).toNumber();
+  return cents === 0 ? 0 : cents; // no "-0" in reports
 }

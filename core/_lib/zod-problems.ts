@@ -98,12 +98,11 @@ export function problemsFromZod(error: z.ZodError, input: unknown): InputProblem
         break;
       case 'invalid_value': {
         const options = issue.values.map((v) => JSON.stringify(v)).join(', ');
+        const wanted = issue.values.length === 1 ? options : `one of ${options}`;
+        const missing = valueAt(input, issue.path) === undefined;
         problems.push({
           path,
-          message:
-            issue.values.length === 1
-              ? `expected ${options}, got ${given}`
-              : `expected one of ${options}, got ${given}`,
+          message: missing ? `is required: expected ${wanted}` : `expected ${wanted}, got ${given}`,
         });
         break;
       }

@@ -18,6 +18,7 @@ export interface StepOutcome {
   cfm50After: number;
   appliedCfm50: number;
   limitedBy: StepLimit;
+  leakageBefore: LeakageByLocation;
   leakageAfter: LeakageByLocation;
   energyAfter: AnnualEnergy;
   saved: AnnualEnergy;
@@ -61,6 +62,7 @@ export function applyMeasure(
     cfm50After: cfm50Before - appliedCfm50,
     appliedCfm50,
     limitedBy,
+    leakageBefore: state.leakage,
     leakageAfter,
     energyAfter,
     saved: energySaved(state.energy, energyAfter),

@@ -39,7 +39,7 @@ const CASES: readonly BadCase[] = [
   {
     name: 'format missing',
     change: (h) => deleteAt(h, 'format'),
-    expected: [['format', /expected "sealwork-home\/1", got nothing/]],
+    expected: [['format', /is required: expected "sealwork-home\/1"/]],
   },
 
   // Missing required fields, at each level.
@@ -101,7 +101,7 @@ const CASES: readonly BadCase[] = [
   {
     name: 'combustion appliance: venting missing',
     change: (h) => deleteAt(h, 'combustionAppliances[0].venting'),
-    expected: [['combustionAppliances[0].venting', /expected one of .*"sealed".*got nothing/]],
+    expected: [['combustionAppliances[0].venting', /is required: expected one of .*"sealed"/]],
   },
 
   // Wrong types.
