@@ -183,7 +183,10 @@ function methodInputProblems(home: HomeFile): PathProblem[] {
 }
 
 /** Readings that cannot be fitted, reported at the home file's own paths. */
-function pointProblems(points: NonNullable<HomeFile['leakageTest']['points']>): PathProblem[] {
+function pointProblems(
+  points: NonNullable<HomeFile['leakageTest']['points']>,
+  at: (string | number)[] = ['leakageTest'],
+): PathProblem[] {
   try {
     const fit = fitMultipointTest(
       points.map((point) => ({ pressurePa: point.pa, flowCfm: point.cfm })),
@@ -191,7 +194,7 @@ function pointProblems(points: NonNullable<HomeFile['leakageTest']['points']>): 
     if (fit.exponentN < 0.3 || fit.exponentN > 1.2) {
       return [
         {
-          path: ['leakageTest', 'points'],
+          path: [...at, 'points'],
           message: `the readings fit a flow exponent n of ${fit.exponentN.toFixed(2)}; expected 0.3 to 1.2 (0.5 to 1 in practice): check the readings`,
         },
       ];
@@ -288,7 +291,12 @@ export function crossFieldProblems(home: HomeFile, badPaths: readonly string[]):
   const clean = (paths: string[]) =>
     paths.every((path) => !badPaths.some((bad) => overlaps(bad, path)));
   const measures: readonly Measure[] = Array.isArray(home.measures) ? home.measures : [];
-  const rules = [...RULES, ...measureRules(measures)];
+  const otherTests = Array.isArray(home.otherLeakageTests) ? home.otherLeakageTests : [];
+  const otherTestRules: Rule[] = otherTests.map((test, index) => ({
+    reads: () => [`otherLeakageTests[${index}].points`],
+    check: () => (test.points ? pointProblems(test.points, ['otherLeakageTests', index]) : []),
+  }));
+  const rules = [...RULES, ...measureRules(measures), ...otherTestRules];
   return rules.flatMap((rule) => {
     let reads: string[];
     try {

@@ -160,41 +160,72 @@ const economicsSchema = z.strictObject({
   ranking: z.enum(RANKINGS).optional(),
 });
 
-const leakageTestSchema = z
-  .strictObject({
-    cfm50: z.number().positive().max(100_000).optional(),
-    exponentN: z.number().min(0.3).max(1.2).optional(),
-    points: z
-      .array(
-        z.strictObject({
-          pa: z.number().positive().max(200),
-          cfm: z.number().positive().max(200_000),
-        }),
-      )
-      .min(2)
-      .max(50)
-      .optional(),
-  })
-  .check((ctx) => {
-    const test = ctx.value;
-    const hasPoint = test.cfm50 !== undefined;
-    const hasPoints = test.points !== undefined;
-    if (hasPoint === hasPoints) {
-      ctx.issues.push({
-        code: 'custom',
-        input: test,
-        message: 'expected either { cfm50 } for a one-point test or { points: [{ pa, cfm }] }',
-      });
-    }
-    if (hasPoints && test.exponentN !== undefined) {
-      ctx.issues.push({
-        code: 'custom',
-        input: test,
-        path: ['exponentN'],
-        message: 'a multipoint test fits its own exponent; leave exponentN out',
-      });
-    }
-  });
+/** A calendar date, `YYYY-MM-DD`, that exists. */
+const isoDateSchema = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'expected a date as YYYY-MM-DD')
+  .refine((text) => {
+    const [year, month, day] = text.split('-').map(Number) as [number, number, number];
+    const date = new Date(Date.UTC(year, month - 1, day));
+    return (
+      date.getUTCFullYear() === year &&
+      date.getUTCMonth() === month - 1 &&
+      date.getUTCDate() === day
+    );
+  }, 'expected a real calendar date');
+
+export const LEAKAGE_TEST_KINDS = ['testIn', 'testOut'] as const;
+export type LeakageTestKind = (typeof LEAKAGE_TEST_KINDS)[number];
+
+const leakageTestFields = {
+  cfm50: z.number().positive().max(100_000).optional(),
+  exponentN: z.number().min(0.3).max(1.2).optional(),
+  points: z
+    .array(
+      z.strictObject({
+        pa: z.number().positive().max(200),
+        cfm: z.number().positive().max(200_000),
+      }),
+    )
+    .min(2)
+    .max(50)
+    .optional(),
+  testedOn: isoDateSchema.optional(),
+  note: z.string().max(2000).optional(),
+};
+
+/** One point or several, never both; a multipoint test fits its own exponent. */
+function checkTestShape(ctx: {
+  value: { cfm50?: number | undefined; points?: unknown; exponentN?: number | undefined };
+  issues: z.core.$ZodRawIssue[];
+}): void {
+  const test = ctx.value;
+  const hasPoint = test.cfm50 !== undefined;
+  const hasPoints = test.points !== undefined;
+  if (hasPoint === hasPoints) {
+    ctx.issues.push({
+      code: 'custom',
+      input: test,
+      message: 'expected either { cfm50 } for a one-point test or { points: [{ pa, cfm }] }',
+    });
+  }
+  if (hasPoints && test.exponentN !== undefined) {
+    ctx.issues.push({
+      code: 'custom',
+      input: test,
+      path: ['exponentN'],
+      message: 'a multipoint test fits its own exponent; leave exponentN out',
+    });
+  }
+}
+
+/** The test-in the plan is built on. */
+const leakageTestSchema = z.strictObject(leakageTestFields).check(checkTestShape);
+
+/** Any other test of the home: earlier test-ins, test-outs after the work. */
+const otherLeakageTestSchema = z
+  .strictObject({ kind: z.enum(LEAKAGE_TEST_KINDS), ...leakageTestFields })
+  .check(checkTestShape);
 
 const costSchema = z.strictObject({
   materialsUsd: z.number().min(0).max(1_000_000),
@@ -252,6 +283,24 @@ export const homeFileSchema = z
   .strictObject({
     format: z.literal(HOME_FILE_FORMAT),
     name: z.string().min(1).max(200),
+    /** True for the invented demo scenario, so it is never mistaken for a client's home. */
+    demo: z.boolean().optional(),
+    address: z
+      .strictObject({
+        street: z.string().min(1).max(200),
+        town: z.string().max(100).optional(),
+        region: z.string().max(100).optional(),
+        postalCode: z.string().max(20).optional(),
+      })
+      .optional(),
+    client: z
+      .strictObject({
+        name: z.string().min(1).max(200),
+        phone: z.string().max(50).optional(),
+        email: z.string().max(200).optional(),
+      })
+      .optional(),
+    notes: z.string().max(10_000).optional(),
     house: houseSchema,
     climate: climateSchema,
     heating: heatingSchema,
@@ -262,6 +311,7 @@ export const homeFileSchema = z
     nFactorOverride: z.number().min(5).max(40).optional(),
     leakShares: leakSharesSchema.optional(),
     leakageTest: leakageTestSchema,
+    otherLeakageTests: z.array(otherLeakageTestSchema).max(50).optional(),
     leakageFloorCfm50: z.number().min(0).max(100_000).optional(),
     combustionAppliances: z.array(applianceSchema).max(20).optional(),
     ventilation: ventilationSchema.optional(),
@@ -300,6 +350,8 @@ export type Heating = HomeFile['heating'];
 export type Cooling = NonNullable<HomeFile['cooling']>;
 export type CombustionAppliance = NonNullable<HomeFile['combustionAppliances']>[number];
 export type LeakShares = NonNullable<HomeFile['leakShares']>;
+export type LeakageTest = HomeFile['leakageTest'];
+export type OtherLeakageTest = NonNullable<HomeFile['otherLeakageTests']>[number];
 
 /** Parses and checks a home file; throws `InputError` listing every problem found. */
 export function parseHomeFile(input: unknown): HomeFile {
