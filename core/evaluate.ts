@@ -16,7 +16,7 @@ import {
   onePointTest,
   type LeakageFit,
 } from './leakage.ts';
-import { findMeasureType } from './measure-library.ts';
+import { SHIPPED_LIBRARY, type MeasureLookup } from './measure-library.ts';
 import { estimateReductionCfm50, prepareMeasures } from './measures.ts';
 import { FUEL_FACTS } from './fuels.ts';
 import { planHome, type PlanResult } from './plan.ts';
@@ -50,20 +50,27 @@ export function fitOfTest(test: HomeFile['leakageTest']): LeakageFit {
   return onePointTest(test.cfm50 ?? 0, test.exponentN);
 }
 
+export interface EvaluateOptions {
+  /** The measure library to take defaults from (a project's edits); the shipped one by default. */
+  library?: MeasureLookup;
+}
+
 /**
  * Evaluates a home.
  *
  * @param input - a home file (parsed or raw JSON); raw input is validated first
  * @throws InputError listing every problem with the input
  */
-export function evaluateHome(input: unknown): Evaluation {
+export function evaluateHome(input: unknown, options: EvaluateOptions = {}): Evaluation {
+  const library = options.library ?? SHIPPED_LIBRARY;
   const home = parseHomeFile(input);
   const fit = fitOfTest(home.leakageTest);
-  const model = buildHomeModel(home, fit, home.leakShares ?? assumedSharesFor(home, fit));
+  const model = buildHomeModel(home, fit, home.leakShares ?? assumedSharesFor(home, fit, library));
   const prices = buildPriceBook(home);
   const measures = prepareMeasures(home.measures, {
     exponentN: fit.exponentN,
     testIn: model.testIn,
+    library,
   });
   const plan = planHome({ model, prices, measures, ranking: home.economics.ranking ?? 'sir' });
   const pkg = plan.package;
@@ -97,11 +104,11 @@ export function evaluateHome(input: unknown): Evaluation {
 }
 
 /** Leak shares for a home file that gives none, from the default split and its work scope. */
-function assumedSharesFor(home: HomeFile, fit: LeakageFit): LeakShares {
+function assumedSharesFor(home: HomeFile, fit: LeakageFit, library: MeasureLookup): LeakShares {
   const expectedByLocation: Partial<Record<LeakLocation, number>> = {};
   const noLocationNeeded = { ceiling: 0, wall: 0, floor: 0, flue: 0 };
   for (const measure of home.measures) {
-    const type = findMeasureType(measure.type);
+    const type = library.find(measure.type);
     if (!type || measure.status === 'declined' || measure.shareOfLocation) continue;
     const location = measure.location ?? type.location;
     const { range } = estimateReductionCfm50(measure, type, {
@@ -161,8 +168,11 @@ function notesOf(home: HomeFile, model: HomeModel, plan: PlanResult): string[] {
 }
 
 /** Evaluates a home and returns the plain JSON report. */
-export function evaluateHomeReport(input: unknown): EvaluationReport {
-  return reportOf(evaluateHome(input));
+export function evaluateHomeReport(
+  input: unknown,
+  options: EvaluateOptions = {},
+): EvaluationReport {
+  return reportOf(evaluateHome(input, options));
 }
 
 /** The plain JSON report of an evaluation. */

@@ -17,8 +17,17 @@ import { OTHER_MEASURES } from './measure-library/other.ts';
 import { PENETRATION_MEASURES } from './measure-library/penetrations.ts';
 import { RIM_AND_SILL_MEASURES } from './measure-library/rim-and-sill.ts';
 import type { MeasureType } from './measure-library/types.ts';
+import { lookupOf, type MeasureLookup } from './measure-library/edits.ts';
 
 export type { MeasureType, SourceNote } from './measure-library/types.ts';
+export {
+  applyEdit,
+  libraryWithEdits,
+  lookupOf,
+  measureTypeEditSchema,
+  type MeasureLookup,
+  type MeasureTypeEdit,
+} from './measure-library/edits.ts';
 
 /** Every measure type, group by group in the order the library lists them. */
 export const MEASURE_LIBRARY: readonly MeasureType[] = [
@@ -42,3 +51,6 @@ const BY_ID: ReadonlyMap<string, MeasureType> = new Map(
 export function findMeasureType(id: string): MeasureType | undefined {
   return BY_ID.get(id);
 }
+
+/** The shipped library as a lookup. */
+export const SHIPPED_LIBRARY: MeasureLookup = lookupOf(MEASURE_LIBRARY);

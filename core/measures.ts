@@ -5,7 +5,7 @@
  */
 import { InputError } from './errors.ts';
 import { cfm50FromElaIn2 } from './leakage.ts';
-import { findMeasureType, type MeasureType } from './measure-library.ts';
+import { SHIPPED_LIBRARY, type MeasureLookup, type MeasureType } from './measure-library.ts';
 import type { Decimal } from './money.ts';
 import { roundToCents, usd } from './money.ts';
 import type { LeakageByLocation } from './home-model.ts';
@@ -114,10 +114,11 @@ export function measureCost(cost: Measure['cost']): MeasureCost {
 /** Resolves every measure of a home against the library. */
 export function prepareMeasures(
   measures: readonly Measure[],
-  context: { exponentN: number; testIn: LeakageByLocation },
+  context: { exponentN: number; testIn: LeakageByLocation; library?: MeasureLookup },
 ): PreparedMeasure[] {
+  const library = context.library ?? SHIPPED_LIBRARY;
   return measures.map((measure, index) => {
-    const type = findMeasureType(measure.type);
+    const type = library.find(measure.type);
     if (!type) {
       throw InputError.at(
         `measures[${index}].type`,

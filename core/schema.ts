@@ -8,6 +8,7 @@
  */
 import { z } from 'zod';
 import { InputError, type InputProblem } from './errors.ts';
+import { rangeSchema } from './_lib/range-schema.ts';
 import { formatPath, problemsFromZod } from './_lib/zod-problems.ts';
 import { crossFieldProblems } from './schema-rules.ts';
 
@@ -69,24 +70,9 @@ export type FanType = (typeof FAN_TYPES)[number];
 /** Fuels that burn in the house; electricity is the only one that does not. */
 export const COMBUSTION_FUELS: readonly Fuel[] = FUELS.filter((fuel) => fuel !== 'electricity');
 
-/** A low / likely / high estimate; the order is checked once the numbers parse. */
-function rangeSchema(options: { min: number; max: number }) {
-  const bound = () => z.number().min(options.min).max(options.max);
-  return z.strictObject({ low: bound(), likely: bound(), high: bound() }).check((ctx) => {
-    const { low, likely, high } = ctx.value;
-    if (!(low <= likely && likely <= high)) {
-      ctx.issues.push({
-        code: 'custom',
-        input: ctx.value,
-        message: `expected low ≤ likely ≤ high, got ${low} / ${likely} / ${high}`,
-      });
-    }
-  });
-}
+export { rangeSchema, type Range } from './_lib/range-schema.ts';
 
-export type Range = { low: number; likely: number; high: number };
-
-const houseSchema = z.strictObject({
+export const houseSchema = z.strictObject({
   conditionedFloorAreaFt2: z.number().positive().max(100_000),
   conditionedVolumeFt3: z.number().positive().max(2_000_000),
   stories: z.number().min(1).max(4),
@@ -115,7 +101,7 @@ const seasonSchema = z.strictObject({
   latentGrainHours: z.number().min(0).max(10_000_000).optional(),
 });
 
-const climateSchema = z.strictObject({
+export const climateSchema = z.strictObject({
   name: z.string().min(1).max(200),
   hdd65F: z.number().min(0).max(20_000),
   cdd65F: z.number().min(0).max(10_000),
@@ -126,7 +112,7 @@ const climateSchema = z.strictObject({
   coolingSeason: seasonSchema.optional(),
 });
 
-const heatingSchema = z.strictObject({
+export const heatingSchema = z.strictObject({
   fuel: z.enum(FUELS),
   equipment: z.enum(HEATING_EQUIPMENT),
   /** AFUE or COP as a fraction; HSPF (Btu/Wh) for a heat pump. */
@@ -138,7 +124,7 @@ const heatingSchema = z.strictObject({
   insidePressureBoundary: z.boolean().optional(),
 });
 
-const coolingSchema = z.strictObject({
+export const coolingSchema = z.strictObject({
   seer: z.number().min(5).max(40),
   distributionEfficiency: z.number().min(0.3).max(1).optional(),
 });
@@ -148,14 +134,14 @@ const priceSchema = z.strictObject({
   escalationRateReal: z.number().min(-0.1).max(0.2).optional(),
 });
 
-const pricesSchema = z.strictObject(
+export const pricesSchema = z.strictObject(
   Object.fromEntries(FUELS.map((fuel) => [fuel, priceSchema.optional()])) as Record<
     Fuel,
     z.ZodOptional<typeof priceSchema>
   >,
 );
 
-const economicsSchema = z.strictObject({
+export const economicsSchema = z.strictObject({
   discountRateReal: z.number().min(-0.05).max(0.2),
   ranking: z.enum(RANKINGS).optional(),
 });
@@ -220,14 +206,14 @@ function checkTestShape(ctx: {
 }
 
 /** The test-in the plan is built on. */
-const leakageTestSchema = z.strictObject(leakageTestFields).check(checkTestShape);
+export const leakageTestSchema = z.strictObject(leakageTestFields).check(checkTestShape);
 
 /** Any other test of the home: earlier test-ins, test-outs after the work. */
-const otherLeakageTestSchema = z
+export const otherLeakageTestSchema = z
   .strictObject({ kind: z.enum(LEAKAGE_TEST_KINDS), ...leakageTestFields })
   .check(checkTestShape);
 
-const costSchema = z.strictObject({
+export const costSchema = z.strictObject({
   materialsUsd: z.number().min(0).max(1_000_000),
   laborHours: z.number().min(0).max(10_000),
   laborRateUsdPerHour: z.number().min(0).max(1_000),
@@ -235,7 +221,7 @@ const costSchema = z.strictObject({
   healthAndSafety: z.boolean().optional(),
 });
 
-const measureSchema = z.strictObject({
+export const measureSchema = z.strictObject({
   id: z.string().min(1).max(64),
   type: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'expected a kebab-case measure type id'),
   location: z.enum(LEAK_LOCATIONS).optional(),
@@ -257,14 +243,14 @@ const measureSchema = z.strictObject({
   note: z.string().max(2000).optional(),
 });
 
-const applianceSchema = z.strictObject({
+export const applianceSchema = z.strictObject({
   kind: z.enum(APPLIANCE_KINDS),
   fuel: z.enum(FUELS),
   venting: z.enum(COMBUSTION_VENTING),
   insidePressureBoundary: z.boolean().optional(),
 });
 
-const ventilationSchema = z.strictObject({
+export const ventilationSchema = z.strictObject({
   existingFanCfm: z.number().min(0).max(2_000).optional(),
   fanType: z.enum(FAN_TYPES).optional(),
   fanCostUsd: z.number().min(0).max(50_000).optional(),
@@ -272,7 +258,16 @@ const ventilationSchema = z.strictObject({
   fanLifeYears: z.int().min(1).max(50).optional(),
 });
 
-const leakSharesSchema = z.strictObject({
+export const emissionsSchema = z.strictObject({
+  electricityKgCo2PerKwh: z.number().min(0).max(2),
+});
+
+export const financingSchema = z.strictObject({
+  aprNominal: z.number().min(0).max(0.5),
+  months: z.int().min(1).max(480),
+});
+
+export const leakSharesSchema = z.strictObject({
   ceiling: z.number().min(0).max(1),
   wall: z.number().min(0).max(1),
   floor: z.number().min(0).max(1),
@@ -315,10 +310,8 @@ export const homeFileSchema = z
     leakageFloorCfm50: z.number().min(0).max(100_000).optional(),
     combustionAppliances: z.array(applianceSchema).max(20).optional(),
     ventilation: ventilationSchema.optional(),
-    emissions: z.strictObject({ electricityKgCo2PerKwh: z.number().min(0).max(2) }).optional(),
-    financing: z
-      .strictObject({ aprNominal: z.number().min(0).max(0.5), months: z.int().min(1).max(480) })
-      .optional(),
+    emissions: emissionsSchema.optional(),
+    financing: financingSchema.optional(),
     measures: z.array(measureSchema).max(200),
   })
   .superRefine(
@@ -343,6 +336,29 @@ function refusedPaths(issues: readonly z.core.$ZodRawIssue[]): string[] {
 }
 
 export type HomeFile = z.output<typeof homeFileSchema>;
+
+/**
+ * The parts of a home that describe the house and its assumptions, each optional so a home
+ * can be saved while the auditor is still filling it in; each part present must be whole.
+ * A draft becomes a home file (and can be evaluated) once every required part is there.
+ */
+export const homeDataSchema = z.strictObject({
+  house: houseSchema.optional(),
+  climate: climateSchema.optional(),
+  heating: heatingSchema.optional(),
+  cooling: coolingSchema.nullable().optional(),
+  prices: pricesSchema.optional(),
+  economics: economicsSchema.optional(),
+  infiltrationMethod: z.enum(INFILTRATION_METHODS).optional(),
+  nFactorOverride: z.number().min(5).max(40).optional(),
+  leakShares: leakSharesSchema.optional(),
+  leakageFloorCfm50: z.number().min(0).max(100_000).optional(),
+  combustionAppliances: z.array(applianceSchema).max(20).optional(),
+  ventilation: ventilationSchema.optional(),
+  emissions: emissionsSchema.optional(),
+  financing: financingSchema.optional(),
+});
+export type HomeData = z.output<typeof homeDataSchema>;
 export type Measure = HomeFile['measures'][number];
 export type House = HomeFile['house'];
 export type Climate = HomeFile['climate'];

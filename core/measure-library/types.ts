@@ -6,7 +6,7 @@ import type { LeakLocation, Range } from '../schema.ts';
 import type { CautionCode } from '../safety/types.ts';
 
 export interface SourceNote {
-  mark: 'published' | 'from memory' | 'common practice' | 'demo default';
+  mark: 'published' | 'from memory' | 'common practice' | 'demo default' | 'user edit';
   citation: string;
 }
 
