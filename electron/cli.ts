@@ -1,17 +1,26 @@
 /**
- * The command line: `sealwork evaluate FILE [--json]` and `sealwork demo [--json]`.
+ * The command line. Every command takes `--db PATH` (default: `SEALWORK_DB`, else the
+ * project file in the user's data folder, which starts with the demo homes); a new file
+ * named by `--db` starts empty unless `--demo` is given.
  *
  * Exit codes: 0 done; 2 bad input (usage, unreadable file, invalid JSON, an invalid home
- * file), with every problem listed on standard error and nothing on standard output;
- * 1 anything unexpected.
+ * file, a home that does not exist), with every problem listed on standard error and nothing
+ * on standard output; 1 anything unexpected.
  */
-import { readFile } from 'node:fs/promises';
+import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import { InputError, type InputProblem } from '../core/errors.ts';
 import { evaluateHomeReport } from '../core/evaluate.ts';
 import type { EvaluationReport } from '../core/report.ts';
+import { backupTo, restoreFrom } from '../db/backup.ts';
 import { DEMO_HOMES, DEMO_PROGRAM_NAME } from '../db/demo/alder-creek.ts';
-import { planText } from './plan-text.ts';
+import { DbError } from '../db/errors.ts';
+import { exportHomeFile, importHomeFile } from '../db/home-file.ts';
+import { defaultProjectPath, openProject } from '../db/project.ts';
+import { effectiveLibrary } from '../db/repositories/library.ts';
+import { listHomes } from '../db/repositories/homes.ts';
+import type { Store } from '../db/store.ts';
+import { planText, textTable } from './plan-text.ts';
 
 export const EXIT_OK = 0;
 export const EXIT_UNEXPECTED = 1;
@@ -20,9 +29,18 @@ export const EXIT_BAD_INPUT = 2;
 const USAGE = `Sealwork: plans air-sealing retrofits from a blower-door test.
 
 Usage:
-  sealwork evaluate FILE [--json]   evaluate one home file (sealwork-home/1)
-  sealwork demo [--json]            evaluate the invented demo homes
-  sealwork help                     show this help
+  sealwork evaluate FILE|HOME_ID [--json]   evaluate a home file or a stored home
+  sealwork list [--json]                    the stored homes
+  sealwork import FILE [--json]             store a home file as a new home; prints its id
+  sealwork export HOME_ID FILE              write a stored home as a home file
+  sealwork backup FILE                      copy the whole project to FILE
+  sealwork restore FILE                     replace the project with a backup
+  sealwork demo [--json]                    evaluate the invented demo homes
+  sealwork help                             show this help
+
+Options:
+  --db PATH   the project file (default: $SEALWORK_DB, else sealwork.db in your data folder)
+  --demo      fill a new project file with the demo homes
 
 Exit codes: 0 done, 2 bad input (problems listed on stderr), 1 unexpected error.`;
 
@@ -39,14 +57,57 @@ const processOutput: CliOutput = {
 
 class UsageError extends Error {}
 
-function listProblems(output: CliOutput, heading: string, problems: readonly InputProblem[]): void {
-  output.err(heading);
-  for (const problem of problems) {
-    output.err(`  ${problem.path === '' ? '(file)' : problem.path}: ${problem.message}`);
+interface Parsed {
+  command: string | undefined;
+  positionals: string[];
+  json: boolean;
+  db: string | undefined;
+  demo: boolean;
+}
+
+function parse(argv: readonly string[]): Parsed {
+  const { values, positionals } = parseArgs({
+    args: [...argv],
+    options: {
+      json: { type: 'boolean' },
+      db: { type: 'string' },
+      demo: { type: 'boolean' },
+      help: { type: 'boolean', short: 'h' },
+    },
+    allowPositionals: true,
+  });
+  const [first, ...rest] = positionals;
+  const command = values.help ? 'help' : first;
+  return {
+    command,
+    positionals: rest,
+    json: values.json === true,
+    db: values.db,
+    demo: values.demo === true,
+  };
+}
+
+function expectPositionals(parsed: Parsed, names: string[]): string[] {
+  if (parsed.positionals.length !== names.length) {
+    throw new UsageError(
+      `${parsed.command} takes ${names.length === 0 ? 'no arguments' : names.join(' ')}`,
+    );
+  }
+  return parsed.positionals;
+}
+
+/** Opens the project for a command, closing it afterwards whatever happens. */
+function withProject<T>(parsed: Parsed, work: (store: Store) => T): T {
+  const path = parsed.db ?? defaultProjectPath();
+  const { store } = openProject(path, { demoWhenNew: parsed.db === undefined || parsed.demo });
+  try {
+    return work(store);
+  } finally {
+    store.close();
   }
 }
 
-async function readHomeFile(path: string): Promise<unknown> {
+async function readJsonFile(path: string): Promise<unknown> {
   let text: string;
   try {
     text = await readFile(path, 'utf8');
@@ -63,6 +124,10 @@ async function readHomeFile(path: string): Promise<unknown> {
   }
 }
 
+function homeIdOf(text: string): number | null {
+  return /^\d+$/.test(text) ? Number(text) : null;
+}
+
 function printReports(
   output: CliOutput,
   reports: readonly EvaluationReport[],
@@ -76,34 +141,108 @@ function printReports(
   output.out(reports.map(planText).join('\n\n' + '═'.repeat(72) + '\n\n'));
 }
 
-async function runEvaluate(args: string[], output: CliOutput): Promise<number> {
-  const { values, positionals } = parseArgs({
-    args,
-    options: { json: { type: 'boolean' } },
-    allowPositionals: true,
-  });
-  if (positionals.length !== 1) throw new UsageError('evaluate takes exactly one FILE');
-  const path = positionals[0] ?? '';
-  const report = evaluateHomeReport(await readHomeFile(path));
-  printReports(output, [report], values.json === true, true);
+async function runEvaluate(parsed: Parsed, output: CliOutput): Promise<number> {
+  const [target = ''] = expectPositionals(parsed, ['FILE|HOME_ID']);
+  const homeId = homeIdOf(target);
+  const report =
+    homeId === null
+      ? evaluateHomeReport(await readJsonFile(target))
+      : withProject(parsed, (store) =>
+          store.read((read) =>
+            evaluateHomeReport(exportHomeFile(read, homeId), { library: effectiveLibrary(read) }),
+          ),
+        );
+  printReports(output, [report], parsed.json, true);
   return EXIT_OK;
 }
 
-function runDemo(args: string[], output: CliOutput): number {
-  const { values, positionals } = parseArgs({
-    args,
-    options: { json: { type: 'boolean' } },
-    allowPositionals: true,
-  });
-  if (positionals.length > 0) throw new UsageError('demo takes no FILE');
+function runList(parsed: Parsed, output: CliOutput): number {
+  expectPositionals(parsed, []);
+  const homes = withProject(parsed, (store) => store.read((read) => listHomes(read)));
+  if (parsed.json) {
+    output.out(JSON.stringify(homes, null, 2));
+    return EXIT_OK;
+  }
+  const rows = homes.map((home) => [
+    String(home.id),
+    home.name,
+    home.town ?? '',
+    home.clientName ?? '',
+    home.heatingFuel ?? '',
+    String(home.measureCount),
+    home.isDemo ? 'demo' : '',
+  ]);
+  output.out(
+    textTable(
+      [
+        { title: 'Id', align: 'right' },
+        { title: 'Home', align: 'left' },
+        { title: 'Town', align: 'left' },
+        { title: 'Client', align: 'left' },
+        { title: 'Fuel', align: 'left' },
+        { title: 'Measures', align: 'right' },
+        { title: '', align: 'left' },
+      ],
+      rows,
+    ),
+  );
+  return EXIT_OK;
+}
+
+async function runImport(parsed: Parsed, output: CliOutput): Promise<number> {
+  const [file = ''] = expectPositionals(parsed, ['FILE']);
+  const input = await readJsonFile(file);
+  const id = withProject(parsed, (store) => store.write((write) => importHomeFile(write, input)));
+  output.out(parsed.json ? JSON.stringify({ id }) : String(id));
+  return EXIT_OK;
+}
+
+async function runExport(parsed: Parsed, output: CliOutput): Promise<number> {
+  const [idText = '', file = ''] = expectPositionals(parsed, ['HOME_ID', 'FILE']);
+  const homeId = homeIdOf(idText);
+  if (homeId === null) throw new UsageError(`HOME_ID must be a number, got "${idText}"`);
+  const homeFile = withProject(parsed, (store) =>
+    store.read((read) => exportHomeFile(read, homeId)),
+  );
+  await writeFile(file, `${JSON.stringify(homeFile, null, 2)}\n`, 'utf8');
+  output.out(`wrote ${file}`);
+  return EXIT_OK;
+}
+
+function runBackup(parsed: Parsed, output: CliOutput): number {
+  const [file = ''] = expectPositionals(parsed, ['FILE']);
+  withProject(parsed, (store) => backupTo(store, file));
+  output.out(`wrote ${file}`);
+  return EXIT_OK;
+}
+
+function runRestore(parsed: Parsed, output: CliOutput): number {
+  const [file = ''] = expectPositionals(parsed, ['FILE']);
+  const path = parsed.db ?? defaultProjectPath();
+  restoreFrom(file, path);
+  // Opening once applies any migration the restored copy needs.
+  withProject(parsed, () => undefined);
+  output.out(`restored ${path} from ${file}`);
+  return EXIT_OK;
+}
+
+function runDemo(parsed: Parsed, output: CliOutput): number {
+  expectPositionals(parsed, []);
   const reports = DEMO_HOMES.map((home) => evaluateHomeReport(home));
-  if (values.json !== true) {
+  if (!parsed.json) {
     output.out(
       `${DEMO_PROGRAM_NAME} (an invented demo scenario: every home, price and climate is made up)\n`,
     );
   }
-  printReports(output, reports, values.json === true, false);
+  printReports(output, reports, parsed.json, false);
   return EXIT_OK;
+}
+
+function listProblems(output: CliOutput, heading: string, problems: readonly InputProblem[]): void {
+  output.err(heading);
+  for (const problem of problems) {
+    output.err(`  ${problem.path === '' ? '(file)' : problem.path}: ${problem.message}`);
+  }
 }
 
 /**
@@ -116,25 +255,37 @@ export async function main(
   argv: readonly string[],
   output: CliOutput = processOutput,
 ): Promise<number> {
-  const [command, ...rest] = argv;
   try {
-    switch (command) {
+    const parsed = parse(argv);
+    switch (parsed.command) {
       case 'evaluate':
-        return await runEvaluate(rest, output);
+        return await runEvaluate(parsed, output);
+      case 'list':
+        return runList(parsed, output);
+      case 'import':
+        return await runImport(parsed, output);
+      case 'export':
+        return await runExport(parsed, output);
+      case 'backup':
+        return runBackup(parsed, output);
+      case 'restore':
+        return runRestore(parsed, output);
       case 'demo':
-        return runDemo(rest, output);
+        return runDemo(parsed, output);
       case undefined:
       case 'help':
-      case '--help':
-      case '-h':
         output.out(USAGE);
         return EXIT_OK;
       default:
-        throw new UsageError(`unknown command "${command}"`);
+        throw new UsageError(`unknown command "${parsed.command}"`);
     }
   } catch (error) {
     if (error instanceof InputError) {
-      listProblems(output, 'The home file cannot be evaluated:', error.problems);
+      listProblems(output, 'The home file cannot be used:', error.problems);
+      return EXIT_BAD_INPUT;
+    }
+    if (error instanceof DbError) {
+      output.err(`sealwork: ${error.message}${error.field ? ` (${error.field})` : ''}`);
       return EXIT_BAD_INPUT;
     }
     if (

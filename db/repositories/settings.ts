@@ -1,0 +1,58 @@
+/** The user's settings, each with a default until changed. */
+import { z } from 'zod';
+import { RANKINGS } from '../../core/schema.ts';
+import type { ReadAccess, WriteAccess } from '../store.ts';
+import { readJson, validated } from './_rows.ts';
+
+export const settingsSchema = z.strictObject({
+  units: z.enum(['IP', 'SI']),
+  discountRateReal: z.number().min(-0.05).max(0.2),
+  ranking: z.enum(RANKINGS),
+  laborRateUsdPerHour: z.number().min(0).max(1000),
+  markupFraction: z.number().min(0).max(5),
+  electricityKgCo2PerKwh: z.number().min(0).max(2).nullable(),
+});
+export type Settings = z.output<typeof settingsSchema>;
+
+/**
+ * Defaults before the user sets anything. The 3 % real discount rate is the order of the
+ * DOE/FEMP rate published with NIST Handbook 135's annual supplement (from memory; set your
+ * program's rate). Labour rate and markup are demo defaults; the grid factor is unknown
+ * until given.
+ */
+export const DEFAULT_SETTINGS: Settings = {
+  units: 'IP',
+  discountRateReal: 0.03,
+  ranking: 'sir',
+  laborRateUsdPerHour: 58,
+  markupFraction: 0.15,
+  electricityKgCo2PerKwh: null,
+};
+
+export function getSettings(read: ReadAccess): Settings {
+  const rows = read.statement('SELECT key, value FROM settings').all() as { key: string; value: string }[];
+  const stored = Object.fromEntries(rows.map((row) => [row.key, readJson<unknown>(row.value)]));
+  const merged = { ...DEFAULT_SETTINGS, ...stored };
+  // A setting from a newer version, or one hand-edited out of range, falls back to its default.
+  const result = settingsSchema.safeParse(merged);
+  if (result.success) return result.data;
+  const repaired: Record<string, unknown> = { ...merged };
+  for (const issue of result.error.issues) {
+    const key = issue.path[0];
+    if (typeof key === 'string') repaired[key] = DEFAULT_SETTINGS[key as keyof Settings];
+  }
+  return settingsSchema.parse(repaired);
+}
+
+/** Changes some settings; the others keep their values. */
+export function updateSettings(write: WriteAccess, patch: Partial<Settings>): Settings {
+  const next = validated(settingsSchema, { ...getSettings(write), ...patch });
+  const upsert = write.statement(
+    `INSERT INTO settings (key, value, updated_at) VALUES (?, ?, ?)
+     ON CONFLICT (key) DO UPDATE SET value = excluded.value, updated_at = excluded.updated_at`,
+  );
+  for (const key of Object.keys(patch) as (keyof Settings)[]) {
+    upsert.run(key, JSON.stringify(next[key]), write.now);
+  }
+  return next;
+}
