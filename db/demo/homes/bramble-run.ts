@@ -1,0 +1,96 @@
+/** 88 Bramble Run, Stonecrop: an invented demo home (see shared.ts). */
+import type { HomeFileInput } from '../../../core/schema.ts';
+import {
+  ALDER_CREEK_CLIMATE,
+  DEMO_TOWNS,
+  ECONOMICS,
+  EMISSIONS,
+  PRICES,
+  crewCost,
+  demoAddress,
+  demoNotes,
+  range,
+} from './shared.ts';
+
+export const BRAMBLE_RUN: HomeFileInput = {
+  format: 'sealwork-home/1',
+  name: '88 Bramble Run: 1993 ranch on a crawlspace, kerosene furnace and an unvented heater',
+  demo: true,
+  address: demoAddress('88 Bramble Run', DEMO_TOWNS.stonecrop),
+  client: { name: 'Cecil and Opal Brannock', phone: '555-0158' },
+  notes: demoNotes(
+    'Ranch over a vented crawlspace with the ducts in it. The kerosene furnace is power-vented through the side wall. The clients run a portable unvented kerosene heater in the back sunroom on cold nights: discussed, and a CO alarm left with them.',
+  ),
+  house: {
+    conditionedFloorAreaFt2: 1500,
+    conditionedVolumeFt3: 12_000,
+    stories: 1,
+    heightFt: 11,
+    bedrooms: 3,
+    shelterClass: 3,
+    foundation: 'crawlspace',
+    yearBuilt: 1993,
+  },
+  climate: ALDER_CREEK_CLIMATE,
+  heating: {
+    fuel: 'kerosene',
+    equipment: 'furnace',
+    efficiency: 0.82,
+    distributionEfficiency: 0.8,
+    combustionVenting: 'inducedDraft',
+  },
+  cooling: { seer: 13, distributionEfficiency: 0.8 },
+  prices: PRICES,
+  economics: ECONOMICS,
+  infiltrationMethod: 'lblBasic',
+  leakageTest: { cfm50: 2700, testedOn: '2026-06-09' },
+  combustionAppliances: [{ kind: 'spaceHeater', fuel: 'kerosene', venting: 'none' }],
+  ventilation: { existingFanCfm: 0, fanType: 'exhaust', fanCostUsd: 430 },
+  emissions: EMISSIONS,
+  measures: [
+    {
+      id: 'bramble-top-plates',
+      type: 'attic-top-plates',
+      reductionCfm50: range(200, 320, 450),
+      cost: crewCost(100, 6),
+    },
+    {
+      id: 'bramble-boots',
+      type: 'duct-boots',
+      location: 'floor',
+      byUnits: { units: 10 },
+      cost: crewCost(45, 3),
+      note: 'Floor registers over the crawlspace ducts.',
+    },
+    {
+      id: 'bramble-rim',
+      type: 'rim-joist',
+      shareOfLocation: { share: range(0.2, 0.3, 0.4) },
+      cost: crewCost(180, 5),
+    },
+    {
+      id: 'bramble-cans',
+      type: 'recessed-lights',
+      byUnits: { units: 6 },
+      cost: crewCost(140, 3),
+    },
+    {
+      id: 'bramble-fans',
+      type: 'exhaust-fan-vents',
+      byUnits: { units: 2 },
+      cost: crewCost(40, 1),
+    },
+    {
+      id: 'bramble-plumbing',
+      type: 'plumbing-penetrations',
+      byUnits: { units: 7 },
+      cost: crewCost(25, 1.5),
+    },
+    {
+      id: 'bramble-dryer',
+      type: 'dryer-vent',
+      byUnits: { units: 1 },
+      cost: crewCost(40, 1),
+    },
+  ],
+};

@@ -1,0 +1,112 @@
+/** 1180 Coldbrook Road, Stonecrop: an invented demo home (see shared.ts). */
+import type { HomeFileInput } from '../../../core/schema.ts';
+import {
+  ALDER_CREEK_CLIMATE,
+  DEMO_TOWNS,
+  ECONOMICS,
+  PRICES,
+  crewCost,
+  demoAddress,
+  demoNotes,
+  range,
+} from './shared.ts';
+
+export const COLDBROOK_ROAD: HomeFileInput = {
+  format: 'sealwork-home/1',
+  name: '1180 Coldbrook Road: 1912 balloon-frame farmhouse, wood stove with an oil boiler behind it',
+  demo: true,
+  address: demoAddress('1180 Coldbrook Road', DEMO_TOWNS.stonecrop),
+  client: { name: 'Ingrid Solberg-Tate', phone: '555-0139' },
+  notes: demoNotes(
+    'Balloon-frame farmhouse on open ground, rubble-stone cellar. The kitchen wood stove heats most of the house; the old oil boiler runs only when nobody is home to feed the stove. Wall cavities open straight into the attic; the parlour fireplace is unused and has no damper. The blower door could not reach 50 Pa: readings taken up to 40 Pa.',
+  ),
+  house: {
+    conditionedFloorAreaFt2: 2100,
+    conditionedVolumeFt3: 18_900,
+    stories: 2,
+    heightFt: 21,
+    bedrooms: 4,
+    shelterClass: 2,
+    foundation: 'basement',
+    yearBuilt: 1912,
+    flueHeightFt: 34,
+    siteTerrain: 'open',
+  },
+  climate: ALDER_CREEK_CLIMATE,
+  heating: {
+    fuel: 'wood',
+    equipment: 'stove',
+    efficiency: 0.6,
+    combustionVenting: 'naturalDraft',
+  },
+  cooling: null,
+  prices: PRICES,
+  economics: ECONOMICS,
+  infiltrationMethod: 'aim2',
+  leakShares: { ceiling: 0.32, wall: 0.36, floor: 0.24, flue: 0.08 },
+  leakageTest: {
+    points: [
+      { pa: 10, cfm: 2505 },
+      { pa: 15, cfm: 3380 },
+      { pa: 20, cfm: 4060 },
+      { pa: 25, cfm: 4795 },
+      { pa: 30, cfm: 5340 },
+      { pa: 35, cfm: 6005 },
+      { pa: 40, cfm: 6465 },
+    ],
+    testedOn: '2026-03-26',
+  },
+  combustionAppliances: [
+    { kind: 'boiler', fuel: 'heatingOil', venting: 'naturalDraft' },
+    { kind: 'fireplace', fuel: 'wood', venting: 'naturalDraft' },
+  ],
+  measures: [
+    {
+      id: 'coldbrook-wall-cavities',
+      type: 'attic-chases',
+      shareOfLocation: { share: range(0.3, 0.42, 0.55) },
+      cost: crewCost(380, 14),
+      note: 'Balloon-frame stud bays open to the attic along both long walls: blocked with rigid board and sealed.',
+    },
+    {
+      id: 'coldbrook-attic-door',
+      type: 'door-weatherstrip',
+      location: 'ceiling',
+      byUnits: { units: 1 },
+      cost: crewCost(45, 1.5),
+      note: 'The door to the walk-up attic stair, weatherstripped and fitted with a latch.',
+    },
+    {
+      id: 'coldbrook-sill',
+      type: 'sill-plate',
+      byUnits: { units: 150, leakageAreaIn2PerUnit: range(0.1, 0.25, 0.6) },
+      cost: crewCost(140, 8),
+      note: 'Sill over rubble stone: gaps larger than the library’s typical sill.',
+    },
+    {
+      id: 'coldbrook-parlour-chimney',
+      type: 'fireplace-damper',
+      reductionCfm50: range(200, 350, 500),
+      cost: crewCost(310, 2.5),
+      note: 'Top-sealing damper on the unused parlour chimney.',
+    },
+    {
+      id: 'coldbrook-doors',
+      type: 'door-weatherstrip',
+      byUnits: { units: 3 },
+      cost: crewCost(105, 4),
+    },
+    {
+      id: 'coldbrook-plumbing',
+      type: 'plumbing-penetrations',
+      byUnits: { units: 8 },
+      cost: crewCost(30, 2),
+    },
+    {
+      id: 'coldbrook-windows',
+      type: 'window-sealing',
+      byUnits: { units: 24 },
+      cost: crewCost(180, 14),
+    },
+  ],
+};

@@ -1,0 +1,80 @@
+/** 6 Juniper Hollow, Petrel Ford: an invented demo home (see shared.ts). */
+import type { HomeFileInput } from '../../../core/schema.ts';
+import {
+  ALDER_CREEK_CLIMATE,
+  DEMO_TOWNS,
+  ECONOMICS,
+  EMISSIONS,
+  PRICES,
+  crewCost,
+  demoAddress,
+  demoNotes,
+  range,
+} from './shared.ts';
+
+export const JUNIPER_HOLLOW: HomeFileInput = {
+  format: 'sealwork-home/1',
+  name: '6 Juniper Hollow: 1984 cape, electric baseboard heat, work done',
+  demo: true,
+  address: demoAddress('6 Juniper Hollow', DEMO_TOWNS.petrelFord),
+  client: { name: 'Darnell and Renée Whitcombe', email: 'whitcombe.family@example.net' },
+  notes: demoNotes(
+    'Cape with kneewall attics each side of the upstairs bedrooms, reached through two small hatches. Electric baseboard throughout, electric water heater, no fuel burned in the house. Work finished; test-out done, and a quiet bath fan installed to run continuously as 62.2 asks of the tighter house.',
+  ),
+  house: {
+    conditionedFloorAreaFt2: 1650,
+    conditionedVolumeFt3: 13_200,
+    stories: 1.5,
+    heightFt: 17,
+    bedrooms: 3,
+    shelterClass: 3,
+    foundation: 'basement',
+    yearBuilt: 1984,
+  },
+  climate: ALDER_CREEK_CLIMATE,
+  heating: { fuel: 'electricity', equipment: 'electricResistance', efficiency: 1 },
+  cooling: null,
+  prices: PRICES,
+  economics: ECONOMICS,
+  infiltrationMethod: 'lblBasic',
+  leakageTest: { cfm50: 2150, testedOn: '2026-02-17' },
+  otherLeakageTests: [{ kind: 'testOut', cfm50: 1690, testedOn: '2026-03-12' }],
+  ventilation: { existingFanCfm: 0, fanType: 'exhaust', fanCostUsd: 410 },
+  emissions: EMISSIONS,
+  measures: [
+    {
+      id: 'juniper-kneewalls',
+      type: 'kneewalls',
+      byUnits: { units: 44 },
+      cost: crewCost(210, 8),
+      status: 'done',
+    },
+    {
+      id: 'juniper-hatches',
+      type: 'attic-hatch',
+      byUnits: { units: 2 },
+      cost: crewCost(70, 2),
+      status: 'done',
+    },
+    {
+      id: 'juniper-rim',
+      type: 'rim-joist',
+      shareOfLocation: { share: range(0.15, 0.25, 0.35) },
+      cost: crewCost(150, 4),
+      status: 'done',
+    },
+    {
+      id: 'juniper-plumbing',
+      type: 'plumbing-penetrations',
+      byUnits: { units: 6 },
+      cost: crewCost(25, 1.5),
+      status: 'done',
+    },
+    {
+      id: 'juniper-boxes',
+      type: 'electrical-box-gaskets',
+      byUnits: { units: 26 },
+      cost: crewCost(40, 2.5),
+    },
+  ],
+};

@@ -1,0 +1,111 @@
+/** 14 Millrace Lane, Alder Creek: an invented demo home (see shared.ts). */
+import type { HomeFileInput } from '../../../core/schema.ts';
+import {
+  ALDER_CREEK_CLIMATE,
+  DEMO_TOWNS,
+  ECONOMICS,
+  PRICES,
+  crewCost,
+  demoAddress,
+  demoNotes,
+  range,
+} from './shared.ts';
+
+export const MILLRACE_LANE: HomeFileInput = {
+  format: 'sealwork-home/1',
+  name: '14 Millrace Lane: 1924 two-storey, fieldstone basement, oil boiler',
+  demo: true,
+  address: demoAddress('14 Millrace Lane', DEMO_TOWNS.alderCreek),
+  client: { name: 'Agnes Brandvold', phone: '555-0142' },
+  notes: demoNotes(
+    'Fieldstone basement with daylight at the sill in places. Knob-and-tube circuits still live in the attic and the basement ceiling. Oil boiler and oil water heater share the chimney.',
+  ),
+  house: {
+    conditionedFloorAreaFt2: 1850,
+    conditionedVolumeFt3: 15_800,
+    stories: 2,
+    heightFt: 19,
+    bedrooms: 3,
+    shelterClass: 4,
+    foundation: 'basement',
+    yearBuilt: 1924,
+    knobAndTubeWiring: true,
+    flueHeightFt: 30,
+  },
+  climate: ALDER_CREEK_CLIMATE,
+  heating: {
+    fuel: 'heatingOil',
+    equipment: 'boiler',
+    efficiency: 0.78,
+    distributionEfficiency: 0.9,
+    combustionVenting: 'naturalDraft',
+  },
+  cooling: null,
+  prices: PRICES,
+  economics: ECONOMICS,
+  infiltrationMethod: 'aim2',
+  leakShares: { ceiling: 0.35, wall: 0.33, floor: 0.27, flue: 0.05 },
+  leakageTest: {
+    points: [
+      { pa: 15, cfm: 2210 },
+      { pa: 22, cfm: 2780 },
+      { pa: 30, cfm: 3350 },
+      { pa: 38, cfm: 3890 },
+      { pa: 45, cfm: 4310 },
+      { pa: 52, cfm: 4700 },
+    ],
+    testedOn: '2026-02-10',
+  },
+  combustionAppliances: [{ kind: 'waterHeater', fuel: 'heatingOil', venting: 'naturalDraft' }],
+  measures: [
+    {
+      id: 'mill-top-plates',
+      type: 'attic-top-plates',
+      reductionCfm50: range(350, 550, 750),
+      cost: crewCost(140, 8),
+      lifeYears: 20,
+    },
+    {
+      id: 'mill-chases',
+      type: 'attic-chases',
+      reductionCfm50: range(200, 320, 450),
+      cost: crewCost(110, 5),
+    },
+    {
+      id: 'mill-flue-chase',
+      type: 'flue-chase',
+      reductionCfm50: range(90, 160, 240),
+      cost: crewCost(85, 3),
+    },
+    {
+      id: 'mill-hatch',
+      type: 'attic-hatch',
+      reductionCfm50: range(30, 60, 90),
+      cost: crewCost(45, 1.5),
+    },
+    {
+      id: 'mill-rim',
+      type: 'rim-joist',
+      shareOfLocation: { share: range(0.25, 0.4, 0.55) },
+      cost: crewCost(260, 7),
+    },
+    {
+      id: 'mill-sill',
+      type: 'sill-plate',
+      reductionCfm50: range(80, 150, 240),
+      cost: crewCost(60, 4),
+    },
+    {
+      id: 'mill-windows',
+      type: 'window-sealing',
+      byUnits: { units: 16 },
+      cost: crewCost(120, 10),
+    },
+    {
+      id: 'mill-plumbing',
+      type: 'plumbing-penetrations',
+      byUnits: { units: 10 },
+      cost: crewCost(35, 2),
+    },
+  ],
+};

@@ -1,0 +1,113 @@
+/** 52 Tanager Street, Alder Creek: an invented demo home (see shared.ts). */
+import type { HomeFileInput } from '../../../core/schema.ts';
+import {
+  ALDER_CREEK_CLIMATE,
+  DEMO_TOWNS,
+  ECONOMICS,
+  EMISSIONS,
+  PRICES,
+  crewCost,
+  demoAddress,
+  demoNotes,
+  range,
+} from './shared.ts';
+
+export const TANAGER_STREET: HomeFileInput = {
+  format: 'sealwork-home/1',
+  name: '52 Tanager Street: 1953 ranch, natural-draft gas furnace and water heater, work done',
+  demo: true,
+  address: demoAddress('52 Tanager Street', DEMO_TOWNS.alderCreek),
+  client: { name: 'Wanda Kowalczyk', phone: '555-0121' },
+  notes: demoNotes(
+    'Small ranch over a block basement. Furnace and water heater both natural draft into one clay-lined chimney. The dryer duct had fallen off and was venting into the basement: reconnected first, from the health-and-safety budget. Work finished; test-out and combustion safety test-out done, and the bath fan now runs continuously on low to meet 62.2.',
+  ),
+  house: {
+    conditionedFloorAreaFt2: 1100,
+    conditionedVolumeFt3: 8_800,
+    stories: 1,
+    heightFt: 10,
+    bedrooms: 3,
+    shelterClass: 3,
+    foundation: 'basement',
+    yearBuilt: 1953,
+  },
+  climate: ALDER_CREEK_CLIMATE,
+  heating: {
+    fuel: 'naturalGas',
+    equipment: 'furnace',
+    efficiency: 0.78,
+    distributionEfficiency: 0.85,
+    combustionVenting: 'naturalDraft',
+  },
+  cooling: { seer: 11, distributionEfficiency: 0.85 },
+  prices: PRICES,
+  economics: ECONOMICS,
+  infiltrationMethod: 'nFactor',
+  leakageTest: {
+    points: [
+      { pa: 12, cfm: 975 },
+      { pa: 18, cfm: 1230 },
+      { pa: 25, cfm: 1545 },
+      { pa: 32, cfm: 1775 },
+      { pa: 40, cfm: 2070 },
+      { pa: 48, cfm: 2280 },
+    ],
+    testedOn: '2026-01-13',
+  },
+  otherLeakageTests: [
+    {
+      kind: 'testOut',
+      cfm50: 1720,
+      testedOn: '2026-02-05',
+      note: 'After the crew finished; one point at 50 Pa.',
+    },
+  ],
+  combustionAppliances: [{ kind: 'waterHeater', fuel: 'naturalGas', venting: 'naturalDraft' }],
+  ventilation: { existingFanCfm: 0, fanType: 'exhaust', fanCostUsd: 390 },
+  emissions: EMISSIONS,
+  measures: [
+    {
+      id: 'tanager-dryer',
+      type: 'dryer-vent',
+      reductionCfm50: range(20, 35, 50),
+      cost: crewCost(55, 1.5, true),
+      status: 'done',
+      note: 'Duct reconnected with a rigid run to a new damper hood.',
+    },
+    {
+      id: 'tanager-top-plates',
+      type: 'attic-top-plates',
+      byUnits: { units: 170 },
+      cost: crewCost(90, 3.5),
+      status: 'done',
+    },
+    {
+      id: 'tanager-plumbing-chase',
+      type: 'plumbing-chase',
+      reductionCfm50: range(90, 150, 220),
+      cost: crewCost(60, 2.5),
+      status: 'done',
+    },
+    {
+      id: 'tanager-flue-chase',
+      type: 'flue-chase',
+      reductionCfm50: range(70, 120, 180),
+      cost: crewCost(75, 2),
+      status: 'done',
+    },
+    {
+      id: 'tanager-rim',
+      type: 'rim-joist',
+      shareOfLocation: { share: range(0.2, 0.3, 0.4) },
+      cost: crewCost(110, 3),
+      status: 'done',
+    },
+    {
+      id: 'tanager-boots',
+      type: 'duct-boots',
+      byUnits: { units: 8 },
+      cost: crewCost(30, 1.5),
+      status: 'done',
+    },
+  ],
+};
