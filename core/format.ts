@@ -45,7 +45,8 @@ export function formatRatio(value: number | null): string {
   return value === null ? '—' : formatNumber(value, 2);
 }
 
-/** Years to one decimal, or "never" when the savings never repay the cost. */
+/** Years to one decimal; "never" when the savings never repay the cost, "> 100 yr" past a century. */
 export function formatYears(value: number | null): string {
-  return value === null ? 'never' : `${formatNumber(value, 1)} yr`;
+  if (value === null) return 'never';
+  return value > 100 ? '> 100 yr' : `${formatNumber(value, 1)} yr`;
 }
