@@ -203,10 +203,7 @@ function pointProblems(
   } catch (error) {
     if (!(error instanceof InputError)) throw error;
     return error.problems.map((problem) => ({
-      path: [
-        'leakageTest',
-        ...pathKeys(problem.path.startsWith('points') ? problem.path : 'points'),
-      ],
+      path: [...at, ...pathKeys(problem.path.startsWith('points') ? problem.path : 'points')],
       message: problem.message,
     }));
   }

@@ -277,12 +277,12 @@ export const leakSharesSchema = z.strictObject({
 export const homeFileSchema = z
   .strictObject({
     format: z.literal(HOME_FILE_FORMAT),
-    name: z.string().min(1).max(200),
+    name: z.string().max(200).regex(/\S/, 'expected a name with at least one letter or digit'),
     /** True for the invented demo scenario, so it is never mistaken for a client's home. */
     demo: z.boolean().optional(),
     address: z
       .strictObject({
-        street: z.string().min(1).max(200),
+        street: z.string().min(1).max(200).optional(),
         town: z.string().max(100).optional(),
         region: z.string().max(100).optional(),
         postalCode: z.string().max(20).optional(),

@@ -3,7 +3,8 @@
  * `VACUUM INTO` while the project stays open; restoring checks the copy first (a Sealwork
  * file, intact, not from a newer version) and then replaces the project file in one rename.
  */
-import { existsSync, renameSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, renameSync, rmSync } from 'node:fs';
+import { dirname } from 'node:path';
 import Database from 'better-sqlite3';
 import { classifySqliteError, DbError } from './errors.ts';
 import { LATEST_SCHEMA_VERSION } from './migrations/index.ts';
@@ -18,7 +19,10 @@ export function backupTo(store: Store, backupPath: string): void {
     renameSync(partial, backupPath);
   } catch (error) {
     rmSync(partial, { force: true });
-    throw classifySqliteError(error) ?? new DbError('io', `cannot write the backup ${backupPath}`, { cause: error });
+    throw (
+      classifySqliteError(error) ??
+      new DbError('io', `cannot write the backup ${backupPath}`, { cause: error })
+    );
   }
 }
 
@@ -28,15 +32,20 @@ export function backupTo(store: Store, backupPath: string): void {
  * @returns its schema version
  */
 export function checkBackup(backupPath: string): number {
-  if (!existsSync(backupPath)) throw new DbError('notFound', `${backupPath}: no such file`, { field: 'file' });
+  if (!existsSync(backupPath))
+    throw new DbError('notFound', `${backupPath}: no such file`, { field: 'file' });
   let sqlite: Database.Database | undefined;
   try {
     sqlite = new Database(backupPath, { readonly: true, fileMustExist: true });
     const integrity = sqlite.pragma('integrity_check', { simple: true });
-    if (integrity !== 'ok') throw new DbError('corrupt', `${backupPath} is damaged (${String(integrity)})`);
+    if (integrity !== 'ok')
+      throw new DbError('corrupt', `${backupPath} is damaged (${String(integrity)})`);
     const version = sqlite.pragma('user_version', { simple: true }) as number;
-    const hasHomes = sqlite.prepare("SELECT 1 FROM sqlite_master WHERE type = 'table' AND name = 'homes'").get();
-    if (version < 1 || !hasHomes) throw new DbError('corrupt', `${backupPath} is not a Sealwork project`);
+    const hasHomes = sqlite
+      .prepare("SELECT 1 FROM sqlite_master WHERE type = 'table' AND name = 'homes'")
+      .get();
+    if (version < 1 || !hasHomes)
+      throw new DbError('corrupt', `${backupPath} is not a Sealwork project`);
     if (version > LATEST_SCHEMA_VERSION) {
       throw new DbError(
         'newerVersion',
@@ -46,7 +55,10 @@ export function checkBackup(backupPath: string): number {
     return version;
   } catch (error) {
     if (error instanceof DbError) throw error;
-    throw classifySqliteError(error) ?? new DbError('corrupt', `${backupPath} is not a Sealwork project`, { cause: error });
+    throw (
+      classifySqliteError(error) ??
+      new DbError('corrupt', `${backupPath} is not a Sealwork project`, { cause: error })
+    );
   } finally {
     sqlite?.close();
   }
@@ -59,6 +71,7 @@ export function checkBackup(backupPath: string): number {
  */
 export function restoreFrom(backupPath: string, projectPath: string): void {
   checkBackup(backupPath);
+  mkdirSync(dirname(projectPath), { recursive: true });
   const incoming = `${projectPath}.restoring`;
   rmSync(incoming, { force: true });
   const source = new Database(backupPath, { readonly: true, fileMustExist: true });

@@ -16,21 +16,28 @@ import {
 } from '../core/schema.ts';
 import { createClient, findOrCreateClient, getClient } from './repositories/clients.ts';
 import { createHome, getHome } from './repositories/homes.ts';
-import { addLeakageTest, listLeakageTests, type LeakageTestRecord } from './repositories/leakage-tests.ts';
+import {
+  addLeakageTest,
+  listLeakageTests,
+  type LeakageTestRecord,
+} from './repositories/leakage-tests.ts';
 import { effectiveLibrary } from './repositories/library.ts';
 import { addMeasure, listMeasures } from './repositories/measures.ts';
 import { climates, priceSets } from './repositories/reusable-sets.ts';
 import type { ReadAccess, WriteAccess } from './store.ts';
 
 /**
- * The test-in a plan is built on: the latest dated one; among tests of the same date (or
- * undated), the first listed.
+ * The test-in a plan is built on: the one marked as its basis; without a mark, the latest
+ * dated one, and among tests of the same date (or undated) the first listed.
  */
 export function planTestOf(tests: readonly LeakageTestRecord[]): LeakageTestRecord | undefined {
+  const marked = tests.find((record) => record.planBasis && record.test.kind === 'testIn');
+  if (marked) return marked;
   let chosen: LeakageTestRecord | undefined;
   for (const record of tests) {
     if (record.test.kind !== 'testIn') continue;
-    if (chosen === undefined || (record.test.testedOn ?? '') > (chosen.test.testedOn ?? '')) chosen = record;
+    if (chosen === undefined || (record.test.testedOn ?? '') > (chosen.test.testedOn ?? ''))
+      chosen = record;
   }
   return chosen;
 }
@@ -43,8 +50,12 @@ function withDefaults(measure: Measure, library: MeasureLookup): Measure {
   if (measure.byUnits) {
     resolved.byUnits = {
       units: measure.byUnits.units,
-      leakageAreaIn2PerUnit: measure.byUnits.leakageAreaIn2PerUnit ?? { ...type.leakageAreaIn2PerUnit },
-      sealingEffectiveness: measure.byUnits.sealingEffectiveness ?? { ...type.sealingEffectiveness },
+      leakageAreaIn2PerUnit: measure.byUnits.leakageAreaIn2PerUnit ?? {
+        ...type.leakageAreaIn2PerUnit,
+      },
+      sealingEffectiveness: measure.byUnits.sealingEffectiveness ?? {
+        ...type.sealingEffectiveness,
+      },
     };
   }
   resolved.lifeYears = measure.lifeYears ?? type.defaultLifeYears;
@@ -71,7 +82,7 @@ export function exportHomeFile(read: ReadAccess, homeId: number): HomeFile {
   const { data } = home;
   const file: Record<string, unknown> = { format: HOME_FILE_FORMAT, name: home.name };
   if (home.isDemo) file.demo = true;
-  if (home.address.street) file.address = { ...home.address, street: home.address.street };
+  if (Object.keys(home.address).length > 0) file.address = { ...home.address };
   if (client) {
     file.client = {
       name: client.name,
@@ -114,10 +125,17 @@ function dataOf(file: HomeFile): HomeData {
  * @returns the new home's id
  * @throws InputError listing every problem of the file; nothing is written then
  */
-export function importHomeFile(write: WriteAccess, input: unknown, options: { newClient?: boolean } = {}): number {
+export function importHomeFile(
+  write: WriteAccess,
+  input: unknown,
+  options: { newClient?: boolean } = {},
+): number {
   const file = parseHomeFile(input);
   let clientId: number | null = null;
-  if (file.client) clientId = options.newClient ? createClient(write, file.client) : findOrCreateClient(write, file.client);
+  if (file.client)
+    clientId = options.newClient
+      ? createClient(write, file.client)
+      : findOrCreateClient(write, file.client);
   const homeId = createHome(write, {
     name: file.name,
     clientId,
@@ -126,7 +144,7 @@ export function importHomeFile(write: WriteAccess, input: unknown, options: { ne
     ...(file.notes === undefined ? {} : { notes: file.notes }),
     data: dataOf(file),
   });
-  addLeakageTest(write, homeId, { kind: 'testIn', ...file.leakageTest });
+  addLeakageTest(write, homeId, { kind: 'testIn', ...file.leakageTest }, { planBasis: true });
   for (const test of file.otherLeakageTests ?? []) addLeakageTest(write, homeId, test);
   file.measures.forEach((measure, index) => {
     try {

@@ -9,7 +9,8 @@
  */
 import Database from 'better-sqlite3';
 import { classifySqliteError, DbError, sqliteCode } from './errors.ts';
-import { migrate } from './migrate.ts';
+import { migrate, schemaVersion } from './migrate.ts';
+import { LATEST_SCHEMA_VERSION } from './migrations/index.ts';
 
 /** How long a connection waits for another writer before SQLite reports busy, ms. */
 const BUSY_TIMEOUT_MS = 5000;
@@ -73,16 +74,20 @@ export function openStore(path: string, options: StoreOptions = {}): Store {
   }
   try {
     sqlite.pragma(`busy_timeout = ${BUSY_TIMEOUT_MS}`);
-    if (!options.readonly) {
-      sqlite.pragma('journal_mode = WAL');
-      sqlite.pragma('synchronous = NORMAL');
-    }
-    sqlite.pragma('foreign_keys = ON');
-    if (!options.readonly) {
-      withBusyRetry(() =>
-        migrate(sqlite, options.targetVersion === undefined ? {} : { targetVersion: options.targetVersion }),
-      );
-    }
+    // Another process may be opening or writing the same file: every step may meet a lock.
+    withBusyRetry(() => {
+      // Look before changing anything: a file Sealwork cannot use is left exactly as it was.
+      checkUsable(sqlite, path, options);
+      if (!options.readonly) {
+        sqlite.pragma('journal_mode = WAL');
+        sqlite.pragma('synchronous = NORMAL');
+      }
+      sqlite.pragma('foreign_keys = ON');
+      if (!options.readonly) {
+        const target = options.targetVersion;
+        migrate(sqlite, target === undefined ? {} : { targetVersion: target });
+      }
+    });
   } catch (error) {
     sqlite.close();
     if (error instanceof DbError) throw error;
@@ -120,6 +125,35 @@ export function openStore(path: string, options: StoreOptions = {}): Store {
   };
 }
 
+/**
+ * Refuses a file from a newer Sealwork, another program's database, and (read-only) a file
+ * not at this version, before any pragma or migration writes to it.
+ */
+function checkUsable(sqlite: Database.Database, path: string, options: StoreOptions): void {
+  const version = schemaVersion(sqlite);
+  if (version > LATEST_SCHEMA_VERSION) {
+    throw new DbError(
+      'newerVersion',
+      `This project file was written by a newer Sealwork (schema version ${version}; this version reads up to ${LATEST_SCHEMA_VERSION}). Update Sealwork to open it; the file was not changed.`,
+    );
+  }
+  if (version === 0) {
+    const { tables } = sqlite
+      .prepare(
+        "SELECT count(*) AS tables FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%'",
+      )
+      .get() as { tables: number };
+    if (tables > 0)
+      throw new DbError('corrupt', `${path} is another program's database, not a Sealwork project`);
+  }
+  if (options.readonly && version !== LATEST_SCHEMA_VERSION) {
+    throw new DbError(
+      'invalid',
+      `${path} is at schema version ${version}; open it once for writing to bring it to version ${LATEST_SCHEMA_VERSION}`,
+    );
+  }
+}
+
 /** Runs `attempt`, trying again a few times when another process keeps the file busy. */
 function withBusyRetry<T>(attempt: () => T): T {
   for (let tries = 0; ; tries += 1) {
@@ -127,7 +161,8 @@ function withBusyRetry<T>(attempt: () => T): T {
       return attempt();
     } catch (error) {
       const code = sqliteCode(error);
-      const busy = code !== undefined && (code.startsWith('SQLITE_BUSY') || code.startsWith('SQLITE_LOCKED'));
+      const busy =
+        code !== undefined && (code.startsWith('SQLITE_BUSY') || code.startsWith('SQLITE_LOCKED'));
       if (!busy) throw error instanceof DbError ? error : (classifySqliteError(error) ?? error);
       if (tries >= BUSY_RETRIES) throw classifySqliteError(error) ?? error;
       wait(50 * (tries + 1));

@@ -6,6 +6,7 @@
 import { migration0001 } from './0001-homes.ts';
 import { migration0002 } from './0002-library-and-plans.ts';
 import { migration0003 } from './0003-settings-and-job-status.ts';
+import { migration0004 } from './0004-plan-basis.ts';
 
 export interface Migration {
   /** The `PRAGMA user_version` the database has after this step. */
@@ -14,7 +15,12 @@ export interface Migration {
   sql: string;
 }
 
-export const MIGRATIONS: readonly Migration[] = [migration0001, migration0002, migration0003];
+export const MIGRATIONS: readonly Migration[] = [
+  migration0001,
+  migration0002,
+  migration0003,
+  migration0004,
+];
 
 /** The schema version this build of Sealwork writes. */
 export const LATEST_SCHEMA_VERSION = MIGRATIONS.length;

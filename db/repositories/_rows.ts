@@ -10,11 +10,20 @@ export function readJson<T>(text: string): T {
 }
 
 /** Checks `input` against `schema`; throws InputError with every problem at `pathPrefix`. */
-export function validated<S extends z.ZodType>(schema: S, input: unknown, pathPrefix = ''): z.output<S> {
+export function validated<S extends z.ZodType>(
+  schema: S,
+  input: unknown,
+  pathPrefix = '',
+): z.output<S> {
   const result = schema.safeParse(input);
   if (result.success) return result.data;
   const problems = problemsFromZod(result.error, input).map((problem) => ({
-    path: pathPrefix === '' ? problem.path : problem.path === '' ? pathPrefix : `${pathPrefix}.${problem.path}`,
+    path:
+      pathPrefix === ''
+        ? problem.path
+        : problem.path === ''
+          ? pathPrefix
+          : `${pathPrefix}.${problem.path}`,
     message: problem.message,
   }));
   throw new InputError(problems);

@@ -66,7 +66,9 @@ export function getClient(read: ReadAccess, id: number): Client {
 }
 
 export function listClients(read: ReadAccess): Client[] {
-  return (read.statement('SELECT * FROM clients ORDER BY name, id').all() as ClientRow[]).map(clientOf);
+  return (read.statement('SELECT * FROM clients ORDER BY name, id').all() as ClientRow[]).map(
+    clientOf,
+  );
 }
 
 export function updateClient(write: WriteAccess, id: number, input: ClientInput): void {
@@ -91,7 +93,9 @@ export function updateClient(write: WriteAccess, id: number, input: ClientInput)
 export function findOrCreateClient(write: WriteAccess, input: ClientInput): number {
   const client = validated(clientInputSchema, input);
   const row = write
-    .statement('SELECT id FROM clients WHERE name = ? AND coalesce(email, \'\') = ? ORDER BY id LIMIT 1')
+    .statement(
+      "SELECT id FROM clients WHERE name = ? AND coalesce(email, '') = ? ORDER BY id LIMIT 1",
+    )
     .get(client.name, client.email ?? '') as { id: number } | undefined;
   return row ? row.id : createClient(write, client);
 }

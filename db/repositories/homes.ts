@@ -178,29 +178,34 @@ export function touchHome(write: WriteAccess, id: number): void {
 /** A home that is not deleted. */
 export function getHome(read: ReadAccess, id: number): Home {
   const row = read.statement('SELECT * FROM homes WHERE id = ? AND deleted_at IS NULL').get(id) as
-    | HomeRow
-    | undefined;
+    HomeRow | undefined;
   return homeOf(found(row, `home ${id}`, 'homeId'));
 }
 
 /** Hides a home; `restoreHome` brings it back, `purgeHome` removes it for good. */
 export function deleteHome(write: WriteAccess, id: number): void {
   const result = write
-    .statement('UPDATE homes SET deleted_at = ?, updated_at = ? WHERE id = ? AND deleted_at IS NULL')
+    .statement(
+      'UPDATE homes SET deleted_at = ?, updated_at = ? WHERE id = ? AND deleted_at IS NULL',
+    )
     .run(write.now, write.now, id);
   found(result.changes > 0 ? true : undefined, `home ${id}`, 'homeId');
 }
 
 export function restoreHome(write: WriteAccess, id: number): void {
   const result = write
-    .statement('UPDATE homes SET deleted_at = NULL, updated_at = ? WHERE id = ? AND deleted_at IS NOT NULL')
+    .statement(
+      'UPDATE homes SET deleted_at = NULL, updated_at = ? WHERE id = ? AND deleted_at IS NOT NULL',
+    )
     .run(write.now, id);
   found(result.changes > 0 ? true : undefined, `deleted home ${id}`, 'homeId');
 }
 
 /** Removes a deleted home with its tests, measures and plans. Only a deleted home can be purged. */
 export function purgeHome(write: WriteAccess, id: number): void {
-  const result = write.statement('DELETE FROM homes WHERE id = ? AND deleted_at IS NOT NULL').run(id);
+  const result = write
+    .statement('DELETE FROM homes WHERE id = ? AND deleted_at IS NOT NULL')
+    .run(id);
   found(result.changes > 0 ? true : undefined, `deleted home ${id}`, 'homeId');
 }
 
@@ -213,7 +218,7 @@ export interface HomeSummary {
   yearBuilt: number | null;
   floorAreaFt2: number | null;
   heatingFuel: string | null;
-  /** CFM50 of the latest test-in given as one point, or null (multipoint tests need a fit). */
+  /** CFM50 of the plan's test-in when given as one point, or null (multipoint tests need a fit). */
   latestTestInCfm50: number | null;
   measureCount: number;
   jobStatus: JobStatus;
@@ -234,6 +239,24 @@ export interface HomeFilter {
   offset?: number;
 }
 
+/** Up to five words of a search, each escaped for LIKE; a home must match every one. */
+function searchWords(
+  search: string | undefined,
+): Record<'w1' | 'w2' | 'w3' | 'w4' | 'w5', string | null> {
+  const words = (search ?? '')
+    .split(/\s+/)
+    .filter((word) => word !== '')
+    .slice(0, 5)
+    .map((word) => word.replace(/[\\%_]/g, (c) => `\\${c}`));
+  return {
+    w1: words[0] ?? null,
+    w2: words[1] ?? null,
+    w3: words[2] ?? null,
+    w4: words[3] ?? null,
+    w5: words[4] ?? null,
+  };
+}
+
 /** The homes matching a filter, by name. */
 export function listHomes(read: ReadAccess, filter: HomeFilter = {}): HomeSummary[] {
   const rows = read
@@ -241,16 +264,20 @@ export function listHomes(read: ReadAccess, filter: HomeFilter = {}): HomeSummar
       `SELECT h.id, h.name, h.town, c.name AS client_name, h.year_built, h.floor_area_ft2, h.heating_fuel,
               h.job_status, h.is_demo, h.updated_at, h.deleted_at,
               (SELECT count(*) FROM measures m WHERE m.home_id = h.id) AS measure_count,
+              h.name || ' ' || coalesce(h.street, '') || ' ' || coalesce(h.town, '') || ' ' ||
+                coalesce(c.name, '') AS haystack,
               (SELECT t.cfm50 FROM leakage_tests t WHERE t.home_id = h.id AND t.kind = 'testIn'
-                ORDER BY coalesce(t.tested_on, '') DESC, t.position DESC LIMIT 1) AS latest_cfm50
+                ORDER BY t.plan_basis DESC, coalesce(t.tested_on, '') DESC, t.position ASC LIMIT 1) AS latest_cfm50
        FROM homes h LEFT JOIN clients c ON c.id = h.client_id
        WHERE (h.deleted_at IS NOT NULL) = @deleted
          AND (@town IS NULL OR h.town = @town)
          AND (@fuel IS NULL OR h.heating_fuel = @fuel)
          AND (@client IS NULL OR h.client_id = @client)
-         AND (@search IS NULL OR
-              (h.name || ' ' || coalesce(h.street, '') || ' ' || coalesce(h.town, '') || ' ' ||
-               coalesce(c.name, '')) LIKE '%' || @search || '%' ESCAPE '\\')
+         AND (@w1 IS NULL OR haystack LIKE '%' || @w1 || '%' ESCAPE '\\')
+         AND (@w2 IS NULL OR haystack LIKE '%' || @w2 || '%' ESCAPE '\\')
+         AND (@w3 IS NULL OR haystack LIKE '%' || @w3 || '%' ESCAPE '\\')
+         AND (@w4 IS NULL OR haystack LIKE '%' || @w4 || '%' ESCAPE '\\')
+         AND (@w5 IS NULL OR haystack LIKE '%' || @w5 || '%' ESCAPE '\\')
        ORDER BY h.name, h.id
        LIMIT @limit OFFSET @offset`,
     )
@@ -259,7 +286,7 @@ export function listHomes(read: ReadAccess, filter: HomeFilter = {}): HomeSummar
       town: filter.town ?? null,
       fuel: filter.heatingFuel ?? null,
       client: filter.clientId ?? null,
-      search: filter.search ? filter.search.replace(/[\\%_]/g, (c) => `\\${c}`) : null,
+      ...searchWords(filter.search),
       limit: filter.limit ?? -1,
       offset: filter.offset ?? 0,
     }) as {

@@ -1,6 +1,7 @@
 /** A home's blower-door tests: test-ins and test-outs, each one point or several, dated. */
 import { otherLeakageTestSchema, type OtherLeakageTest } from '../../core/schema.ts';
 import type { ReadAccess, WriteAccess } from '../store.ts';
+import { DbError } from '../errors.ts';
 import { found, validated } from './_rows.ts';
 import { touchHome } from './homes.ts';
 
@@ -9,6 +10,8 @@ export interface LeakageTestRecord {
   homeId: number;
   position: number;
   test: OtherLeakageTest;
+  /** The test-in the home's plan is built on, when marked (see `planTestOf`). */
+  planBasis: boolean;
   createdAt: string;
   updatedAt: string;
 }
@@ -22,6 +25,7 @@ interface TestRow {
   cfm50: number | null;
   exponent_n: number | null;
   note: string | null;
+  plan_basis: number;
   created_at: string;
   updated_at: string;
 }
@@ -44,8 +48,17 @@ function writePoints(write: WriteAccess, testId: number, test: OtherLeakageTest)
   (test.points ?? []).forEach((point, index) => insert.run(testId, index, point.pa, point.cfm));
 }
 
-/** Adds a test to a home, after its other tests; returns the test's id. */
-export function addLeakageTest(write: WriteAccess, homeId: number, input: unknown): number {
+/**
+ * Adds a test to a home, after its other tests; returns the test's id.
+ *
+ * @param options.planBasis - mark this test-in as the one the plan is built on
+ */
+export function addLeakageTest(
+  write: WriteAccess,
+  homeId: number,
+  input: unknown,
+  options: { planBasis?: boolean } = {},
+): number {
   const test = validated(otherLeakageTestSchema, input);
   touchHome(write, homeId);
   const { next } = write
@@ -69,14 +82,32 @@ export function addLeakageTest(write: WriteAccess, homeId: number, input: unknow
     );
   const id = Number(result.lastInsertRowid);
   writePoints(write, id, test);
+  if (options.planBasis) setPlanBasis(write, id);
   return id;
+}
+
+/** Marks a test-in as the one its home's plan is built on (and no other). */
+export function setPlanBasis(write: WriteAccess, id: number): void {
+  const row = found(
+    write.statement('SELECT home_id, kind FROM leakage_tests WHERE id = ?').get(id) as
+      { home_id: number; kind: string } | undefined,
+    `leakage test ${id}`,
+    'testId',
+  );
+  if (row.kind !== 'testIn')
+    throw new DbError('invalid', 'only a test-in can be the basis of a plan', { field: 'testId' });
+  touchHome(write, row.home_id);
+  write
+    .statement('UPDATE leakage_tests SET plan_basis = (id = ?) WHERE home_id = ?')
+    .run(id, row.home_id);
 }
 
 /** Replaces a test's readings, date and note. */
 export function updateLeakageTest(write: WriteAccess, id: number, input: unknown): void {
   const test = validated(otherLeakageTestSchema, input);
   const row = found(
-    write.statement('SELECT home_id FROM leakage_tests WHERE id = ?').get(id) as { home_id: number } | undefined,
+    write.statement('SELECT home_id FROM leakage_tests WHERE id = ?').get(id) as
+      { home_id: number } | undefined,
     `leakage test ${id}`,
     'testId',
   );
@@ -86,13 +117,22 @@ export function updateLeakageTest(write: WriteAccess, id: number, input: unknown
       `UPDATE leakage_tests SET kind = ?, tested_on = ?, cfm50 = ?, exponent_n = ?, note = ?, updated_at = ?
        WHERE id = ?`,
     )
-    .run(test.kind, test.testedOn ?? null, test.cfm50 ?? null, test.exponentN ?? null, test.note ?? null, write.now, id);
+    .run(
+      test.kind,
+      test.testedOn ?? null,
+      test.cfm50 ?? null,
+      test.exponentN ?? null,
+      test.note ?? null,
+      write.now,
+      id,
+    );
   writePoints(write, id, test);
 }
 
 export function deleteLeakageTest(write: WriteAccess, id: number): void {
   const row = found(
-    write.statement('SELECT home_id FROM leakage_tests WHERE id = ?').get(id) as { home_id: number } | undefined,
+    write.statement('SELECT home_id FROM leakage_tests WHERE id = ?').get(id) as
+      { home_id: number } | undefined,
     `leakage test ${id}`,
     'testId',
   );
@@ -113,6 +153,7 @@ export function listLeakageTests(read: ReadAccess, homeId: number): LeakageTestR
     homeId: row.home_id,
     position: row.position,
     test: testOf(row, pointsOf.all(row.id) as { pa: number; cfm: number }[]),
+    planBasis: row.plan_basis === 1,
     createdAt: row.created_at,
     updatedAt: row.updated_at,
   }));

@@ -15,7 +15,9 @@ import { found, readJson, validated } from './_rows.ts';
 
 /** Every edit, by measure type id. */
 export function listLibraryEdits(read: ReadAccess): Map<string, MeasureTypeEdit> {
-  const rows = read.statement('SELECT type_id, data FROM measure_library_edits ORDER BY type_id').all() as {
+  const rows = read
+    .statement('SELECT type_id, data FROM measure_library_edits ORDER BY type_id')
+    .all() as {
     type_id: string;
     data: string;
   }[];

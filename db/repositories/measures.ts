@@ -63,9 +63,14 @@ function checked(input: unknown): Measure {
   if (!SHIPPED_LIBRARY.find(measure.type)) {
     throw InputError.at('type', `expected a measure type from the library, got "${measure.type}"`);
   }
-  const estimates = [measure.reductionCfm50, measure.byUnits, measure.shareOfLocation].filter(Boolean);
+  const estimates = [measure.reductionCfm50, measure.byUnits, measure.shareOfLocation].filter(
+    Boolean,
+  );
   if (estimates.length !== 1) {
-    throw InputError.at('', 'expected exactly one estimate: reductionCfm50, byUnits or shareOfLocation');
+    throw InputError.at(
+      '',
+      'expected exactly one estimate: reductionCfm50, byUnits or shareOfLocation',
+    );
   }
   return measure;
 }
@@ -120,7 +125,8 @@ export function addMeasure(write: WriteAccess, homeId: number, input: unknown): 
 export function updateMeasure(write: WriteAccess, id: number, input: unknown): void {
   const measure = checked(input);
   const row = found(
-    write.statement('SELECT home_id FROM measures WHERE id = ?').get(id) as { home_id: number } | undefined,
+    write.statement('SELECT home_id FROM measures WHERE id = ?').get(id) as
+      { home_id: number } | undefined,
     `measure ${id}`,
     'measureId',
   );
@@ -143,7 +149,8 @@ export function updateMeasure(write: WriteAccess, id: number, input: unknown): v
 
 export function deleteMeasure(write: WriteAccess, id: number): void {
   const row = found(
-    write.statement('SELECT home_id FROM measures WHERE id = ?').get(id) as { home_id: number } | undefined,
+    write.statement('SELECT home_id FROM measures WHERE id = ?').get(id) as
+      { home_id: number } | undefined,
     `measure ${id}`,
     'measureId',
   );

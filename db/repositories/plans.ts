@@ -53,7 +53,13 @@ const nameSchema = z.string().trim().min(1).max(200);
 
 export function savePlan(
   write: WriteAccess,
-  plan: { homeId: number; name: string; engineVersion: string; inputs: HomeFile; result: EvaluationReport },
+  plan: {
+    homeId: number;
+    name: string;
+    engineVersion: string;
+    inputs: HomeFile;
+    result: EvaluationReport;
+  },
 ): number {
   const name = validated(nameSchema, plan.name, 'name');
   found(
@@ -67,7 +73,15 @@ export function savePlan(
       `INSERT INTO plans (home_id, name, engine_version, inputs, inputs_sha256, result, created_at)
        VALUES (?, ?, ?, ?, ?, ?, ?)`,
     )
-    .run(plan.homeId, name, plan.engineVersion, inputs, inputsDigest(inputs), JSON.stringify(plan.result), write.now);
+    .run(
+      plan.homeId,
+      name,
+      plan.engineVersion,
+      inputs,
+      inputsDigest(inputs),
+      JSON.stringify(plan.result),
+      write.now,
+    );
   return Number(result.lastInsertRowid);
 }
 
@@ -79,6 +93,8 @@ export function getPlan(read: ReadAccess, id: number): SavedPlan {
 /** A home's saved plans, newest first. */
 export function listPlans(read: ReadAccess, homeId: number): SavedPlan[] {
   return (
-    read.statement('SELECT * FROM plans WHERE home_id = ? ORDER BY created_at DESC, id DESC').all(homeId) as PlanRow[]
+    read
+      .statement('SELECT * FROM plans WHERE home_id = ? ORDER BY created_at DESC, id DESC')
+      .all(homeId) as PlanRow[]
   ).map(planOf);
 }

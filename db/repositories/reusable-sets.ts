@@ -28,7 +28,12 @@ interface SetRow {
 
 const nameSchema = z.string().trim().min(1).max(200);
 
-function repository<T>(table: 'climates' | 'price_sets', schema: z.ZodType<T>, what: string, idField: string) {
+function repository<T>(
+  table: 'climates' | 'price_sets',
+  schema: z.ZodType<T>,
+  what: string,
+  idField: string,
+) {
   const setOf = (row: SetRow): NamedSet<T> => ({
     id: row.id,
     name: row.name,
@@ -38,10 +43,15 @@ function repository<T>(table: 'climates' | 'price_sets', schema: z.ZodType<T>, w
   });
   return {
     create(write: WriteAccess, name: string, data: unknown): number {
-      const values = { name: validated(nameSchema, name, 'name'), data: validated(schema, data, 'data') };
+      const values = {
+        name: validated(nameSchema, name, 'name'),
+        data: validated(schema, data, 'data'),
+      };
       try {
         const result = write
-          .statement(`INSERT INTO ${table} (name, data, created_at, updated_at) VALUES (?, ?, ?, ?)`)
+          .statement(
+            `INSERT INTO ${table} (name, data, created_at, updated_at) VALUES (?, ?, ?, ?)`,
+          )
           .run(values.name, JSON.stringify(values.data), write.now, write.now);
         return Number(result.lastInsertRowid);
       } catch (error) {
@@ -49,18 +59,23 @@ function repository<T>(table: 'climates' | 'price_sets', schema: z.ZodType<T>, w
       }
     },
     get(read: ReadAccess, id: number): NamedSet<T> {
-      const row = read.statement(`SELECT * FROM ${table} WHERE id = ?`).get(id) as SetRow | undefined;
+      const row = read.statement(`SELECT * FROM ${table} WHERE id = ?`).get(id) as
+        SetRow | undefined;
       return setOf(found(row, `${what} ${id}`, idField));
     },
     findByName(read: ReadAccess, name: string): NamedSet<T> | undefined {
-      const row = read.statement(`SELECT * FROM ${table} WHERE name = ?`).get(name) as SetRow | undefined;
+      const row = read.statement(`SELECT * FROM ${table} WHERE name = ?`).get(name) as
+        SetRow | undefined;
       return row ? setOf(row) : undefined;
     },
     list(read: ReadAccess): NamedSet<T>[] {
       return (read.statement(`SELECT * FROM ${table} ORDER BY name`).all() as SetRow[]).map(setOf);
     },
     update(write: WriteAccess, id: number, name: string, data: unknown): void {
-      const values = { name: validated(nameSchema, name, 'name'), data: validated(schema, data, 'data') };
+      const values = {
+        name: validated(nameSchema, name, 'name'),
+        data: validated(schema, data, 'data'),
+      };
       try {
         const result = write
           .statement(`UPDATE ${table} SET name = ?, data = ?, updated_at = ? WHERE id = ?`)
@@ -72,15 +87,23 @@ function repository<T>(table: 'climates' | 'price_sets', schema: z.ZodType<T>, w
     },
     /** Deletes a set no home uses; one in use is refused with the homes named by count. */
     remove(write: WriteAccess, id: number): void {
-      try {
-        const result = write.statement(`DELETE FROM ${table} WHERE id = ?`).run(id);
-        found(result.changes > 0 ? true : undefined, `${what} ${id}`, idField);
-      } catch (error) {
-        if (classifySqliteError(error)?.kind === 'foreignKey') {
-          throw new DbError('foreignKey', `${what} ${id} is used by a home; unlink it first`, { field: idField });
-        }
-        throw error;
+      const column = table === 'climates' ? 'climate_id' : 'price_set_id';
+      const { homes } = write
+        .statement(`SELECT count(*) AS homes FROM homes WHERE ${column} = ?`)
+        .get(id) as {
+        homes: number;
+      };
+      if (homes > 0) {
+        throw new DbError(
+          'foreignKey',
+          `${what} ${id} is used by ${homes} home${homes === 1 ? '' : 's'}; unlink them first`,
+          {
+            field: idField,
+          },
+        );
       }
+      const result = write.statement(`DELETE FROM ${table} WHERE id = ?`).run(id);
+      found(result.changes > 0 ? true : undefined, `${what} ${id}`, idField);
     },
   };
 }

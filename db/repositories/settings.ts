@@ -30,8 +30,15 @@ export const DEFAULT_SETTINGS: Settings = {
 };
 
 export function getSettings(read: ReadAccess): Settings {
-  const rows = read.statement('SELECT key, value FROM settings').all() as { key: string; value: string }[];
-  const stored = Object.fromEntries(rows.map((row) => [row.key, readJson<unknown>(row.value)]));
+  const rows = read.statement('SELECT key, value FROM settings').all() as {
+    key: string;
+    value: string;
+  }[];
+  // Keys this version does not know (a newer Sealwork's) are left in the file, unread.
+  const known = new Set(Object.keys(DEFAULT_SETTINGS));
+  const stored = Object.fromEntries(
+    rows.filter((row) => known.has(row.key)).map((row) => [row.key, readJson<unknown>(row.value)]),
+  );
   const merged = { ...DEFAULT_SETTINGS, ...stored };
   // A setting from a newer version, or one hand-edited out of range, falls back to its default.
   const result = settingsSchema.safeParse(merged);

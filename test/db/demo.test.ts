@@ -94,7 +94,7 @@ describe('demo scenario: every home', () => {
     (_name, home) => {
       expect(home.demo).toBe(true);
       expect(home.notes ?? '').toMatch(/invented/i);
-      expect(home.address?.street.trim()).not.toBe('');
+      expect(home.address?.street?.trim() ?? '').not.toBe('');
       expect(home.address?.town?.trim() ?? '').not.toBe('');
       expect(home.client?.name.trim() ?? '').not.toBe('');
       expect(isCalendarDate(home.leakageTest.testedOn ?? '')).toBe(true);
