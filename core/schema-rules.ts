@@ -287,7 +287,12 @@ export function crossFieldProblems(home: HomeFile, badPaths: readonly string[]):
   if (badPaths.includes('') || typeof home !== 'object' || home === null) return [];
   const clean = (paths: string[]) =>
     paths.every((path) => !badPaths.some((bad) => overlaps(bad, path)));
-  const measures: readonly Measure[] = Array.isArray(home.measures) ? home.measures : [];
+  // Entries zod refused may be anything (null, a number): the rules read only objects.
+  const measures: readonly Measure[] = Array.isArray(home.measures)
+    ? home.measures.map((measure) =>
+        typeof measure === 'object' && measure !== null ? measure : ({} as Measure),
+      )
+    : [];
   const otherTests = Array.isArray(home.otherLeakageTests) ? home.otherLeakageTests : [];
   const otherTestRules: Rule[] = otherTests.map((test, index) => ({
     reads: () => [`otherLeakageTests[${index}].points`],

@@ -5,14 +5,7 @@
  */
 
 export type DbErrorKind =
-  | 'notFound'
-  | 'constraint'
-  | 'foreignKey'
-  | 'invalid'
-  | 'newerVersion'
-  | 'busy'
-  | 'corrupt'
-  | 'io';
+  'notFound' | 'constraint' | 'foreignKey' | 'invalid' | 'newerVersion' | 'busy' | 'corrupt' | 'io';
 
 export class DbError extends Error {
   override readonly name = 'DbError';
@@ -20,7 +13,11 @@ export class DbError extends Error {
   /** The field at fault, as the caller named it (`clientId`, `measures[2].id`), if known. */
   readonly field: string | undefined;
 
-  constructor(kind: DbErrorKind, message: string, options: { field?: string; cause?: unknown } = {}) {
+  constructor(
+    kind: DbErrorKind,
+    message: string,
+    options: { field?: string; cause?: unknown } = {},
+  ) {
     super(message, options.cause === undefined ? undefined : { cause: options.cause });
     this.kind = kind;
     this.field = options.field;
@@ -49,27 +46,47 @@ export function classifySqliteError(
   if (code === undefined) return undefined;
   const named = (field: string | undefined) => (field === undefined ? {} : { field });
   if (code === 'SQLITE_CONSTRAINT_FOREIGNKEY') {
-    return new DbError('foreignKey', 'a linked record does not exist', { ...named(fields.foreignKey), cause: error });
+    return new DbError('foreignKey', 'a linked record does not exist', {
+      ...named(fields.foreignKey),
+      cause: error,
+    });
   }
   if (code === 'SQLITE_CONSTRAINT_UNIQUE' || code === 'SQLITE_CONSTRAINT_PRIMARYKEY') {
-    return new DbError('constraint', 'that value is already used', { ...named(fields.unique), cause: error });
+    return new DbError('constraint', 'that value is already used', {
+      ...named(fields.unique),
+      cause: error,
+    });
   }
   if (code === 'SQLITE_CONSTRAINT_CHECK') {
-    return new DbError('constraint', 'a value is outside what the store accepts', { ...named(fields.check), cause: error });
+    return new DbError('constraint', 'a value is outside what the store accepts', {
+      ...named(fields.check),
+      cause: error,
+    });
   }
   if (code === 'SQLITE_CONSTRAINT_NOTNULL') {
-    return new DbError('constraint', 'a required value is missing', { ...named(fields.notNull), cause: error });
+    return new DbError('constraint', 'a required value is missing', {
+      ...named(fields.notNull),
+      cause: error,
+    });
   }
   if (code.startsWith('SQLITE_CONSTRAINT')) {
     return new DbError('constraint', 'a rule of the data was broken', { cause: error });
   }
   if (code.startsWith('SQLITE_BUSY') || code.startsWith('SQLITE_LOCKED')) {
-    return new DbError('busy', 'the project file is busy in another window or program; try again', { cause: error });
+    return new DbError('busy', 'the project file is busy in another window or program; try again', {
+      cause: error,
+    });
   }
   if (code.startsWith('SQLITE_CORRUPT') || code === 'SQLITE_NOTADB') {
-    return new DbError('corrupt', 'the file is not a Sealwork project or is damaged', { cause: error });
+    return new DbError('corrupt', 'the file is not a Sealwork project or is damaged', {
+      cause: error,
+    });
   }
-  if (code.startsWith('SQLITE_CANTOPEN') || code.startsWith('SQLITE_IOERR') || code === 'SQLITE_READONLY') {
+  if (
+    code.startsWith('SQLITE_CANTOPEN') ||
+    code.startsWith('SQLITE_IOERR') ||
+    code === 'SQLITE_READONLY'
+  ) {
     return new DbError('io', 'the project file cannot be opened or written', { cause: error });
   }
   return undefined;

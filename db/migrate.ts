@@ -16,7 +16,9 @@ export function schemaVersion(sqlite: Database.Database): number {
 function checkOrder(migrations: readonly Migration[]): void {
   migrations.forEach((migration, index) => {
     if (migration.version !== index + 1) {
-      throw new Error(`migration ${migration.name} has version ${migration.version}; expected ${index + 1}`);
+      throw new Error(
+        `migration ${migration.name} has version ${migration.version}; expected ${index + 1}`,
+      );
     }
   });
 }

@@ -18,13 +18,16 @@ export function userDataFolder(
   env: Readonly<Record<string, string | undefined>> = process.env,
   platform: NodeJS.Platform = process.platform,
 ): string {
-  if (platform === 'win32') return join(env.APPDATA ?? join(homedir(), 'AppData', 'Roaming'), 'Sealwork');
+  if (platform === 'win32')
+    return join(env.APPDATA ?? join(homedir(), 'AppData', 'Roaming'), 'Sealwork');
   if (platform === 'darwin') return join(homedir(), 'Library', 'Application Support', 'Sealwork');
   return join(env.XDG_DATA_HOME ?? join(homedir(), '.local', 'share'), 'sealwork');
 }
 
 /** The project file: `SEALWORK_DB` when set, else `sealwork.db` in the user's data folder. */
-export function defaultProjectPath(env: Readonly<Record<string, string | undefined>> = process.env): string {
+export function defaultProjectPath(
+  env: Readonly<Record<string, string | undefined>> = process.env,
+): string {
   return env.SEALWORK_DB ?? join(userDataFolder(env), 'sealwork.db');
 }
 
@@ -39,7 +42,10 @@ export interface OpenProjectOptions extends StoreOptions {
 }
 
 /** Opens a project file, creating its folder and, when new and asked for, its demo homes. */
-export function openProject(path: string, options: OpenProjectOptions): { store: Store; created: boolean } {
+export function openProject(
+  path: string,
+  options: OpenProjectOptions,
+): { store: Store; created: boolean } {
   const created = !existsSync(path);
   if (created) mkdirSync(dirname(path), { recursive: true });
   const store = openStore(path, options);

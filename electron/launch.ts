@@ -1,0 +1,83 @@
+/**
+ * What `npm start` runs: the desktop window where the Electron binary is installed, the
+ * browser host otherwise (same screens, same channels, on 127.0.0.1). Options:
+ * `--db PATH` (the project file), `--demo` (fill a new file with the demo homes),
+ * `--no-open` (do not open the system browser), `--browser` (the browser host even where
+ * Electron is present).
+ */
+import { spawn } from 'node:child_process';
+import { existsSync, readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import { defaultProjectPath, openProject } from '../db/project.ts';
+import { startBrowserHost } from './serve.ts';
+
+const HERE = dirname(fileURLToPath(import.meta.url));
+const UI_ROOT = join(HERE, '..', 'ui', 'dist');
+
+/**
+ * The Electron binary's path when it is really installed, else null. Reads the package's
+ * `path.txt` rather than `require('electron')`, which tries to download a missing binary.
+ */
+export function electronBinary(): string | null {
+  try {
+    const packageJson = createRequire(import.meta.url).resolve('electron/package.json');
+    const folder = dirname(packageJson);
+    const pathFile = join(folder, 'path.txt');
+    if (!existsSync(pathFile)) return null;
+    const binary = join(folder, 'dist', readFileSync(pathFile, 'utf8').trim());
+    return existsSync(binary) ? binary : null;
+  } catch {
+    return null;
+  }
+}
+
+function openInBrowser(url: string): void {
+  const command =
+    process.platform === 'darwin' ? 'open' : process.platform === 'win32' ? 'explorer' : 'xdg-open';
+  const child = spawn(command, [url], { detached: true, stdio: 'ignore' });
+  child.on('error', () => undefined); // no system browser: the printed address is enough
+  child.unref();
+}
+
+export async function launch(argv: readonly string[]): Promise<void> {
+  const { values } = parseArgs({
+    args: [...argv],
+    options: {
+      db: { type: 'string' },
+      demo: { type: 'boolean' },
+      'no-open': { type: 'boolean' },
+      browser: { type: 'boolean' },
+    },
+  });
+  const binary = values.browser ? null : electronBinary();
+  if (binary) {
+    const child = spawn(binary, [join(HERE, 'main-entry.cjs'), ...argv], { stdio: 'inherit' });
+    child.on('exit', (code) => process.exit(code ?? 0));
+    return;
+  }
+  const path = values.db ?? defaultProjectPath();
+  const { store } = openProject(path, {
+    demoWhenNew: values.db === undefined || values.demo === true,
+  });
+  const host = await startBrowserHost({
+    context: { store },
+    uiRoot: existsSync(UI_ROOT) ? UI_ROOT : null,
+  });
+  console.log(
+    `Sealwork is running in your browser at ${host.url} (token ${host.token}); project ${path}`,
+  );
+  if (!existsSync(UI_ROOT))
+    console.log('The screens are not built yet; the channels answer at /api/.');
+  if (!values['no-open']) openInBrowser(host.url);
+  const stop = () => {
+    void host.close().then(() => {
+      store.close();
+      process.exit(0);
+    });
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}

@@ -1,0 +1,206 @@
+/**
+ * The Electron main process: one locked-down window on the built screens, the channel table
+ * behind one checkpoint, the native menu and dialogs, print to PDF, the window's size
+ * remembered, one instance at a time. Security rules live in security.ts as plain functions.
+ */
+import { app, BrowserWindow, dialog, ipcMain, Menu, net, protocol, shell } from 'electron';
+import { readFileSync, writeFileSync } from 'node:fs';
+import { dirname, join, normalize, sep } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { parseArgs } from 'node:util';
+import { backupTo } from '../db/backup.ts';
+import { defaultProjectPath, openProject } from '../db/project.ts';
+import type { Store } from '../db/store.ts';
+import { CHANNEL_NAMES, ipcName } from './channel-names.ts';
+import { callChannel, replyForError, type ChannelName } from './channels.ts';
+import { menuTemplate, type MenuItemTemplate } from './desktop/menu.ts';
+import { ensureElectronAddon } from './desktop/native-addon.ts';
+import { loadWindowBounds, saveWindowBounds } from './desktop/window-state.ts';
+import {
+  CONTENT_SECURITY_POLICY,
+  isTrustedSender,
+  mayNavigate,
+  mayOpenExternally,
+  windowOpenDecision,
+} from './security.ts';
+
+const PROJECT_ROOT = join(dirname(process.argv[1] ?? '.'), '..', '..');
+const UI_ROOT = join(PROJECT_ROOT, 'ui', 'dist');
+
+protocol.registerSchemesAsPrivileged([
+  { scheme: 'app', privileges: { standard: true, secure: true, supportFetchAPI: true } },
+]);
+
+/** Serves the built screens on app://sealwork/, never a file outside them, always with the CSP. */
+function serveApp(): void {
+  protocol.handle('app', async (request) => {
+    const url = new URL(request.url);
+    if (url.host !== 'sealwork') return new Response('Not Found', { status: 404 });
+    const file = normalize(
+      join(UI_ROOT, url.pathname === '/' ? 'index.html' : decodeURIComponent(url.pathname)),
+    );
+    if (!file.startsWith(UI_ROOT + sep)) return new Response('Not Found', { status: 404 });
+    const response = await net.fetch(pathToFileURL(file).toString());
+    const headers = new Headers(response.headers);
+    headers.set('Content-Security-Policy', CONTENT_SECURITY_POLICY);
+    headers.set('X-Content-Type-Options', 'nosniff');
+    return new Response(response.body, { status: response.status, headers });
+  });
+}
+
+/** Every channel behind one checkpoint: the sender must be the app's own main frame. */
+function exposeChannels(store: Store): void {
+  for (const name of CHANNEL_NAMES) {
+    ipcMain.handle(ipcName(name), (event, request: unknown) => {
+      const frame = event.senderFrame;
+      const trusted =
+        frame !== null &&
+        isTrustedSender({ url: frame.url, isMainFrame: frame === event.sender.mainFrame });
+      if (!trusted)
+        return {
+          ok: false,
+          error: { kind: 'forbidden', message: 'refused: not the Sealwork window' },
+        };
+      try {
+        return callChannel({ store }, name as ChannelName, request);
+      } catch (error) {
+        return replyForError(error);
+      }
+    });
+  }
+}
+
+function buildMenu(window: BrowserWindow, store: Store): Menu {
+  const send = (command: string) => window.webContents.send('sealwork:menu', command);
+  const convert = (items: MenuItemTemplate[]): Electron.MenuItemConstructorOptions[] =>
+    items.map((item) => {
+      if (item.type === 'separator') return { type: 'separator' };
+      if (item.submenu)
+        return { label: item.label, role: item.role as never, submenu: convert(item.submenu) };
+      if (item.role) return { role: item.role as never };
+      const command = item.command;
+      return {
+        label: item.label,
+        accelerator: item.accelerator,
+        click: () => {
+          if (command === 'backup') void backupWithDialog(window, store);
+          else if (command === 'printProposal') void printProposal(window);
+          else if (command) send(command);
+        },
+      };
+    });
+  return Menu.buildFromTemplate(
+    convert(menuTemplate({ isMac: process.platform === 'darwin', devTools: !app.isPackaged })),
+  );
+}
+
+async function backupWithDialog(window: BrowserWindow, store: Store): Promise<void> {
+  const choice = await dialog.showSaveDialog(window, {
+    title: 'Back up project',
+    defaultPath: `sealwork-backup-${new Date().toISOString().slice(0, 10)}.db`,
+    filters: [{ name: 'Sealwork project', extensions: ['db'] }],
+  });
+  if (choice.canceled || !choice.filePath) return;
+  try {
+    backupTo(store, choice.filePath);
+  } catch (error) {
+    dialog.showErrorBox('The backup was not written', (error as Error).message);
+  }
+}
+
+/** Prints the page (the proposal view) to a PDF the user places. */
+async function printProposal(window: BrowserWindow): Promise<void> {
+  window.webContents.send('sealwork:menu', 'showProposal');
+  const choice = await dialog.showSaveDialog(window, {
+    title: 'Save proposal as PDF',
+    defaultPath: 'proposal.pdf',
+    filters: [{ name: 'PDF', extensions: ['pdf'] }],
+  });
+  if (choice.canceled || !choice.filePath) return;
+  const pdf = await window.webContents.printToPDF({ printBackground: true, pageSize: 'Letter' });
+  writeFileSync(choice.filePath, pdf);
+}
+
+function createWindow(store: Store): BrowserWindow {
+  const statePath = join(app.getPath('userData'), 'window-state.json');
+  const bounds = loadWindowBounds(statePath);
+  const window = new BrowserWindow({
+    ...bounds,
+    minWidth: 1024,
+    minHeight: 700,
+    show: false,
+    title: 'Sealwork',
+    webPreferences: {
+      preload: join(PROJECT_ROOT, 'dist', 'electron', 'preload.cjs'),
+      contextIsolation: true,
+      sandbox: true,
+      nodeIntegration: false,
+      webSecurity: true,
+      spellcheck: true,
+    },
+  });
+  if (bounds.maximized) window.maximize();
+  window.once('ready-to-show', () => window.show());
+  window.on('close', () => {
+    saveWindowBounds(statePath, { ...window.getNormalBounds(), maximized: window.isMaximized() });
+  });
+  window.webContents.on('will-navigate', (event, url) => {
+    if (!mayNavigate(url)) event.preventDefault();
+  });
+  window.webContents.setWindowOpenHandler(({ url }) => {
+    const decision = windowOpenDecision(url);
+    // Hand the browser the URL as we parsed it, so no other parser can read it differently.
+    if (decision.openExternally && mayOpenExternally(url))
+      void shell.openExternal(new URL(url).href);
+    return { action: decision.action };
+  });
+  Menu.setApplicationMenu(buildMenu(window, store));
+  void window.loadURL('app://sealwork/');
+  return window;
+}
+
+function start(): void {
+  if (!app.requestSingleInstanceLock()) {
+    app.quit();
+    return;
+  }
+  const { values } = parseArgs({
+    args: process.argv.slice(2),
+    options: {
+      db: { type: 'string' },
+      demo: { type: 'boolean' },
+      'no-open': { type: 'boolean' },
+      browser: { type: 'boolean' },
+    },
+    strict: false,
+  });
+  void app.whenReady().then(() => {
+    const version = JSON.parse(
+      readFileSync(join(PROJECT_ROOT, 'node_modules', 'electron', 'package.json'), 'utf8'),
+    ) as {
+      version: string;
+    };
+    const nativeBinding = ensureElectronAddon(PROJECT_ROOT, version.version);
+    const path = typeof values.db === 'string' ? values.db : defaultProjectPath();
+    const { store } = openProject(path, {
+      demoWhenNew: values.db === undefined || values.demo === true,
+      nativeBinding,
+    });
+    serveApp();
+    exposeChannels(store);
+    let window = createWindow(store);
+    app.on('second-instance', () => {
+      if (window.isMinimized()) window.restore();
+      window.focus();
+    });
+    app.on('activate', () => {
+      if (BrowserWindow.getAllWindows().length === 0) window = createWindow(store);
+    });
+    app.on('window-all-closed', () => {
+      store.close();
+      app.quit();
+    });
+  });
+}
+
+start();

@@ -1,0 +1,22 @@
+/**
+ * The preload of the desktop window: it exposes to the page one method per channel, each
+ * bound to its own IPC name, and nothing else (no generic invoke, no Node, no Electron).
+ */
+import { contextBridge, ipcRenderer } from 'electron';
+import { CHANNEL_NAMES, ipcName } from './channel-names.ts';
+
+const bridge: Record<string, (request?: unknown) => Promise<unknown>> = {};
+for (const name of CHANNEL_NAMES) {
+  const channel = ipcName(name);
+  bridge[name] = (request?: unknown) => ipcRenderer.invoke(channel, request ?? {});
+}
+
+/** Menu commands from the main process (new home, import, print…), one listener at a time. */
+function onMenuCommand(listener: (command: string) => void): void {
+  ipcRenderer.removeAllListeners('sealwork:menu');
+  ipcRenderer.on('sealwork:menu', (_event, command: unknown) => {
+    if (typeof command === 'string') listener(command);
+  });
+}
+
+contextBridge.exposeInMainWorld('sealwork', Object.freeze({ ...bridge, onMenuCommand }));
