@@ -77,16 +77,16 @@ export function openStore(path: string, options: StoreOptions = {}): Store {
     // Another process may be opening or writing the same file: every step may meet a lock.
     withBusyRetry(() => {
       // Look before changing anything: a file Sealwork cannot use is left exactly as it was.
-      checkUsable(sqlite, path, options);
+      // One read transaction, so a migration another process commits meanwhile is seen whole.
+      const version = sqlite.transaction(() => checkUsable(sqlite, path, options)).deferred();
       if (!options.readonly) {
         sqlite.pragma('journal_mode = WAL');
         sqlite.pragma('synchronous = NORMAL');
       }
       sqlite.pragma('foreign_keys = ON');
-      if (!options.readonly) {
-        const target = options.targetVersion;
-        migrate(sqlite, target === undefined ? {} : { targetVersion: target });
-      }
+      const target = options.targetVersion ?? LATEST_SCHEMA_VERSION;
+      // The write lock is taken only when there is something to migrate.
+      if (!options.readonly && version < target) migrate(sqlite, { targetVersion: target });
     });
   } catch (error) {
     sqlite.close();
@@ -129,7 +129,7 @@ export function openStore(path: string, options: StoreOptions = {}): Store {
  * Refuses a file from a newer Sealwork, another program's database, and (read-only) a file
  * not at this version, before any pragma or migration writes to it.
  */
-function checkUsable(sqlite: Database.Database, path: string, options: StoreOptions): void {
+function checkUsable(sqlite: Database.Database, path: string, options: StoreOptions): number {
   const version = schemaVersion(sqlite);
   if (version > LATEST_SCHEMA_VERSION) {
     throw new DbError(
@@ -152,6 +152,7 @@ function checkUsable(sqlite: Database.Database, path: string, options: StoreOpti
       `${path} is at schema version ${version}; open it once for writing to bring it to version ${LATEST_SCHEMA_VERSION}`,
     );
   }
+  return version;
 }
 
 /** Runs `attempt`, trying again a few times when another process keeps the file busy. */

@@ -36,6 +36,12 @@ export const CHANNEL_NAMES = [
   'settings.update',
   'homeFile.import',
   'homeFile.export',
+  'homeFile.evaluate',
+  'portfolio.summary',
+  'portfolio.checkCsv',
+  'portfolio.importCsv',
+  'portfolio.homesCsv',
+  'portfolio.resultsCsv',
 ] as const;
 
 export type ChannelNameList = (typeof CHANNEL_NAMES)[number];

@@ -18,7 +18,15 @@ import {
   type HomeFile,
 } from '../core/schema.ts';
 import { ENGINE_VERSION } from '../core/version.ts';
+import { exportHomesCsv, resultsCsv, type HomesCsvExport } from '../db/csv-export.ts';
+import {
+  commitCsvImport,
+  planCsvImport,
+  type CsvImportPlan,
+  type CsvProblem,
+} from '../db/csv-import.ts';
 import { DbError } from '../db/errors.ts';
+import { portfolioSummary, type PortfolioSummary } from '../db/portfolio.ts';
 import { exportHomeFile, importHomeFile } from '../db/home-file.ts';
 import {
   createHome,
@@ -101,6 +109,9 @@ const homeFilterSchema = z.strictObject({
   limit: z.int().min(1).max(10_000).optional(),
   offset: z.int().min(0).optional(),
 });
+
+/** The largest portfolio CSV a request may carry, characters (10,000 homes fit easily). */
+const MAX_CSV_CHARS = 8 * 1024 * 1024;
 
 const namedSet = z.strictObject({ name: z.string().max(200), data: z.unknown() });
 
@@ -356,6 +367,42 @@ export const channels = {
     request: byId,
     response: recordOf<HomeFile>(),
     handle: ({ store }, request) => store.read((read) => exportHomeFile(read, request.id)),
+  }),
+  'homeFile.evaluate': channel({
+    request: z.strictObject({ file: z.unknown() }),
+    response: recordOf<EvaluationReport>(),
+    handle: (_context, request) => evaluateHomeReport(request.file),
+  }),
+  'portfolio.summary': channel({
+    request: nothing,
+    response: recordOf<PortfolioSummary>(),
+    handle: ({ store }) => store.read((read) => portfolioSummary(read)),
+  }),
+  'portfolio.checkCsv': channel({
+    request: z.strictObject({ csv: z.string().max(MAX_CSV_CHARS) }),
+    response: recordOf<CsvImportPlan>(),
+    handle: ({ store }, request) => store.read((read) => planCsvImport(read, request.csv)),
+  }),
+  'portfolio.importCsv': channel({
+    request: z.strictObject({ csv: z.string().max(MAX_CSV_CHARS) }),
+    response: z.strictObject({ ids: z.array(id), problems: z.array(recordOf<CsvProblem>()) }),
+    handle: ({ store }, request) =>
+      // Checked and written in one transaction, so the stored sets it names cannot vanish between.
+      store.write((write) => {
+        const plan = planCsvImport(write, request.csv);
+        if (plan.problems.length > 0) return { ids: [], problems: plan.problems };
+        return { ids: commitCsvImport(write, plan), problems: [] };
+      }),
+  }),
+  'portfolio.homesCsv': channel({
+    request: nothing,
+    response: recordOf<HomesCsvExport>(),
+    handle: ({ store }) => store.read((read) => exportHomesCsv(read)),
+  }),
+  'portfolio.resultsCsv': channel({
+    request: nothing,
+    response: z.strictObject({ csv: z.string() }),
+    handle: ({ store }) => store.read((read) => ({ csv: resultsCsv(read) })),
   }),
 } as const;
 

@@ -12,6 +12,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { defaultProjectPath, openProject } from '../db/project.ts';
+import { buildDesktop } from './desktop/build.ts';
 import { startBrowserHost } from './serve.ts';
 
 const HERE = dirname(fileURLToPath(import.meta.url));
@@ -54,7 +55,8 @@ export async function launch(argv: readonly string[]): Promise<void> {
   });
   const binary = values.browser ? null : electronBinary();
   if (binary) {
-    const child = spawn(binary, [join(HERE, 'main-entry.cjs'), ...argv], { stdio: 'inherit' });
+    const mainBundle = await buildDesktop(join(HERE, '..'));
+    const child = spawn(binary, [mainBundle, ...argv], { stdio: 'inherit' });
     child.on('exit', (code) => process.exit(code ?? 0));
     return;
   }

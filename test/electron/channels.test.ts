@@ -63,6 +63,7 @@ const NAMES = Object.keys(channels) as ChannelName[];
  */
 const FIELD_NAMED_INSIDE: Partial<Record<ChannelName, string>> = {
   'homeFile.import': 'file',
+  'homeFile.evaluate': 'file',
   'library.saveEdit': 'edit',
 };
 

@@ -201,8 +201,20 @@ export function validRequests(ids: KnownIds): ValidRequests {
     },
     'homeFile.import': { file: baseHomeFile() },
     'homeFile.export': { id: ids.homeId },
+    'homeFile.evaluate': { file: baseHomeFile() },
+    'portfolio.summary': {},
+    'portfolio.checkCsv': { csv: PORTFOLIO_CSV },
+    'portfolio.importCsv': { csv: PORTFOLIO_CSV },
+    'portfolio.homesCsv': {},
+    'portfolio.resultsCsv': {},
   };
 }
+
+/** A one-home portfolio CSV in the columns the README documents (made up for these tests). */
+const PORTFOLIO_CSV = [
+  'name,street,town,yearBuilt,floorAreaFt2,volumeFt3,stories,heightFt,bedrooms,shelterClass,foundation,hdd65F,cdd65F,elevationFt,nFactorZone,heatingFuel,heatingEquipment,heatingEfficiency,combustionVenting,seer,fuelPriceUsdPerUnit,electricityUsdPerKwh,cfm50',
+  'Channel row,1 Test Way,Testford,1960,1400,11200,1,10,3,3,basement,6000,600,500,2,naturalGas,furnace,0.8,naturalDraft,,1.3,0.15,3000',
+].join('\n');
 
 /**
  * The schemas of the `z.unknown()` request fields that the handlers check, by channel and
@@ -213,6 +225,7 @@ export function validRequests(ids: KnownIds): ValidRequests {
 export function handlerCheckedFields(): Partial<Record<ChannelName, Record<string, JsonSchema>>> {
   return {
     'homeFile.import': { file: jsonSchemaOf(homeFileSchema) },
+    'homeFile.evaluate': { file: jsonSchemaOf(homeFileSchema) },
     'library.saveEdit': { edit: jsonSchemaOf(measureTypeEditSchema) },
     'climates.save': { data: jsonSchemaOf(climateSchema) },
     'priceSets.save': { data: jsonSchemaOf(pricesSchema) },
