@@ -416,6 +416,8 @@ export interface ChannelError {
   kind: string;
   message: string;
   field?: string;
+  /** With `invalid`: every problem (up to 500) with its field, to show beside the fields. */
+  problems?: { path: string; message: string }[];
 }
 
 export type Reply<Value> = { ok: true; value: Value } | { ok: false; error: ChannelError };
@@ -425,15 +427,17 @@ export function isChannelName(name: string): name is ChannelName {
   return Object.hasOwn(channels, name);
 }
 
-/** How many problems a reply spells out; the rest are counted. */
-const MAX_PROBLEMS_SHOWN = 25;
+/** How many problems the message of a reply spells out; the rest are counted. */
+const MAX_PROBLEMS_IN_MESSAGE = 10;
+/** How many problems a reply lists, each with its field, for a caller to show beside the fields. */
+const MAX_PROBLEMS_LISTED = 500;
 
 /** The reply for an error thrown by a handler: only the kind, a plain message and the field. */
 export function replyForError(error: unknown): { ok: false; error: ChannelError } {
   if (error instanceof InputError) {
     const first = error.problems[0];
     const shown = error.problems
-      .slice(0, MAX_PROBLEMS_SHOWN)
+      .slice(0, MAX_PROBLEMS_IN_MESSAGE)
       .map((p) => (p.path ? `${p.path}: ${p.message}` : p.message));
     const more = error.problems.length - shown.length;
     return {
@@ -442,6 +446,9 @@ export function replyForError(error: unknown): { ok: false; error: ChannelError 
         kind: 'invalid',
         message: [...shown, ...(more > 0 ? [`and ${more} more problems`] : [])].join('\n'),
         ...(first?.path ? { field: first.path } : {}),
+        problems: error.problems
+          .slice(0, MAX_PROBLEMS_LISTED)
+          .map((p) => ({ path: p.path, message: p.message })),
       },
     };
   }

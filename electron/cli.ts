@@ -1,42 +1,38 @@
 /**
  * The command line. Every command takes `--db PATH` (default: `SEALWORK_DB`, else the
  * project file in the user's data folder, which starts with the demo homes); a new file
- * named by `--db` starts empty unless `--demo` is given.
+ * named by `--db` starts empty unless `--demo` is given. The commands ask the same channel
+ * table as the desktop window and the browser host (cli-commands.ts).
  *
  * Exit codes: 0 done; 2 bad input (usage, unreadable file, invalid JSON, an invalid home
- * file, a home that does not exist), with every problem listed on standard error and nothing
- * on standard output; 1 anything unexpected.
+ * file or CSV, a home that does not exist), with every problem listed on standard error and
+ * nothing on standard output; 1 anything unexpected.
  */
-import { existsSync } from 'node:fs';
-import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
-import { InputError, type InputProblem } from '../core/errors.ts';
-import { evaluateHomeReport } from '../core/evaluate.ts';
-import type { EvaluationReport } from '../core/report.ts';
-import { backupTo, restoreFrom } from '../db/backup.ts';
-import { DEMO_HOMES, DEMO_PROGRAM_NAME } from '../db/demo/alder-creek.ts';
-import { exportHomesCsv, resultsCsv } from '../db/csv-export.ts';
-import {
-  commitCsvImport,
-  CsvImportError,
-  formatCsvProblem,
-  planCsvImport,
-  type CsvImportPlan,
-  type CsvProblem,
-} from '../db/csv-import.ts';
+import { InputError } from '../core/errors.ts';
 import { DbError } from '../db/errors.ts';
-import { exportHomeFile, importHomeFile } from '../db/home-file.ts';
-import { defaultProjectPath, openProject } from '../db/project.ts';
-import { effectiveLibrary } from '../db/repositories/library.ts';
-import { listHomes } from '../db/repositories/homes.ts';
-import { portfolioSummary, type PortfolioSummary } from '../db/portfolio.ts';
-import { openStore, type ReadAccess, type Store } from '../db/store.ts';
-import { formatNumber, formatUsd } from '../core/format.ts';
-import { planText, textTable } from './plan-text.ts';
+import {
+  ChannelFailure,
+  CsvRefusal,
+  EXIT_BAD_INPUT,
+  EXIT_OK,
+  EXIT_UNEXPECTED,
+  listCsvProblems,
+  runBackup,
+  runDemo,
+  runEvaluate,
+  runExport,
+  runExportCsv,
+  runImport,
+  runList,
+  runPortfolio,
+  runRestore,
+  UsageError,
+  type CliOutput,
+  type Parsed,
+} from './cli-commands.ts';
 
-export const EXIT_OK = 0;
-export const EXIT_UNEXPECTED = 1;
-export const EXIT_BAD_INPUT = 2;
+export { EXIT_BAD_INPUT, EXIT_OK, EXIT_UNEXPECTED, type CliOutput } from './cli-commands.ts';
 
 const USAGE = `Sealwork: plans air-sealing retrofits from a blower-door test.
 
@@ -65,28 +61,10 @@ Options:
 
 Exit codes: 0 done, 2 bad input (problems listed on stderr), 1 unexpected error.`;
 
-/** Where the command line writes; tests pass their own. */
-export interface CliOutput {
-  out(text: string): void;
-  err(text: string): void;
-}
-
 const processOutput: CliOutput = {
   out: (text) => process.stdout.write(text.endsWith('\n') ? text : `${text}\n`),
   err: (text) => process.stderr.write(text.endsWith('\n') ? text : `${text}\n`),
 };
-
-class UsageError extends Error {}
-
-interface Parsed {
-  command: string | undefined;
-  positionals: string[];
-  json: boolean;
-  db: string | undefined;
-  demo: boolean;
-  dryRun: boolean;
-  results: boolean;
-}
 
 function parse(argv: readonly string[]): Parsed {
   const { values, positionals } = parseArgs({
@@ -114,346 +92,38 @@ function parse(argv: readonly string[]): Parsed {
   };
 }
 
-function expectPositionals(parsed: Parsed, names: string[]): string[] {
-  if (parsed.positionals.length !== names.length) {
-    throw new UsageError(
-      `${parsed.command} takes ${names.length === 0 ? 'no arguments' : names.join(' ')}`,
-    );
-  }
-  return parsed.positionals;
-}
-
-/** Opens the project for a command, closing it afterwards whatever happens. */
-function withProject<T>(parsed: Parsed, work: (store: Store) => T): T {
-  const path = parsed.db ?? defaultProjectPath();
-  const { store } = openProject(path, { demoWhenNew: parsed.db === undefined || parsed.demo });
-  try {
-    return work(store);
-  } finally {
-    store.close();
-  }
-}
-
-async function readTextFile(path: string): Promise<string> {
-  try {
-    return await readFile(path, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason =
-      code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a folder' : 'cannot be read';
-    throw InputError.at('', `${path}: ${reason}`);
-  }
-}
-
-async function readJsonFile(path: string): Promise<unknown> {
-  const text = await readTextFile(path);
-  try {
-    return JSON.parse(text) as unknown;
-  } catch (error) {
-    throw InputError.at('', `${path} is not valid JSON (${(error as Error).message})`);
-  }
-}
-
-function homeIdOf(text: string): number | null {
-  return /^\d+$/.test(text) ? Number(text) : null;
-}
-
-function printReports(
-  output: CliOutput,
-  reports: readonly EvaluationReport[],
-  json: boolean,
-  single: boolean,
-): void {
-  if (json) {
-    output.out(JSON.stringify(single ? reports[0] : reports, null, 2));
-    return;
-  }
-  output.out(reports.map(planText).join('\n\n' + '═'.repeat(72) + '\n\n'));
-}
-
-async function runEvaluate(parsed: Parsed, output: CliOutput): Promise<number> {
-  const [target = ''] = expectPositionals(parsed, ['FILE|HOME_ID']);
-  const homeId = homeIdOf(target);
-  const report =
-    homeId === null
-      ? evaluateHomeReport(await readJsonFile(target))
-      : withProject(parsed, (store) =>
-          store.read((read) =>
-            evaluateHomeReport(exportHomeFile(read, homeId), { library: effectiveLibrary(read) }),
-          ),
-        );
-  printReports(output, [report], parsed.json, true);
-  return EXIT_OK;
-}
-
-function runList(parsed: Parsed, output: CliOutput): number {
-  expectPositionals(parsed, []);
-  const homes = withProject(parsed, (store) => store.read((read) => listHomes(read)));
-  if (parsed.json) {
-    output.out(JSON.stringify(homes, null, 2));
-    return EXIT_OK;
-  }
-  const rows = homes.map((home) => [
-    String(home.id),
-    home.name,
-    home.town ?? '',
-    home.clientName ?? '',
-    home.heatingFuel ?? '',
-    String(home.measureCount),
-    home.isDemo ? 'demo' : '',
-  ]);
-  output.out(
-    textTable(
-      [
-        { title: 'Id', align: 'right' },
-        { title: 'Home', align: 'left' },
-        { title: 'Town', align: 'left' },
-        { title: 'Client', align: 'left' },
-        { title: 'Fuel', align: 'left' },
-        { title: 'Measures', align: 'right' },
-        { title: '', align: 'left' },
-      ],
-      rows,
-    ),
-  );
-  return EXIT_OK;
-}
-
-async function runImport(parsed: Parsed, output: CliOutput): Promise<number> {
-  const [file = ''] = expectPositionals(parsed, ['FILE']);
-  if (file.toLowerCase().endsWith('.csv')) return runCsvImport(parsed, file, output);
-  if (parsed.dryRun) throw new UsageError('--dry-run is for a portfolio CSV (FILE.csv)');
-  const input = await readJsonFile(file);
-  const id = withProject(parsed, (store) => store.write((write) => importHomeFile(write, input)));
-  output.out(parsed.json ? JSON.stringify({ id }) : String(id));
-  return EXIT_OK;
-}
-
-async function runExport(parsed: Parsed, output: CliOutput): Promise<number> {
-  const [idText = '', file = ''] = expectPositionals(parsed, ['HOME_ID', 'FILE']);
-  const homeId = homeIdOf(idText);
-  if (homeId === null) throw new UsageError(`HOME_ID must be a number, got "${idText}"`);
-  const homeFile = withProject(parsed, (store) =>
-    store.read((read) => exportHomeFile(read, homeId)),
-  );
-  await writeFile(file, `${JSON.stringify(homeFile, null, 2)}\n`, 'utf8');
-  output.out(`wrote ${file}`);
-  return EXIT_OK;
-}
-
-/** How many problems of a CSV are listed before the rest are counted. */
-const PROBLEMS_LISTED = 200;
-
-function listCsvProblems(output: CliOutput, problems: readonly CsvProblem[]): number {
-  output.err(`The CSV file cannot be imported; nothing was written (${problems.length} problems):`);
-  for (const problem of problems.slice(0, PROBLEMS_LISTED)) {
-    output.err(`  ${formatCsvProblem(problem)}`);
-  }
-  if (problems.length > PROBLEMS_LISTED) {
-    output.err(`  … and ${problems.length - PROBLEMS_LISTED} more`);
-  }
-  return EXIT_BAD_INPUT;
-}
-
-/** Reads the project for a dry run without writing to it (nor creating it). */
-function withProjectRead<T>(parsed: Parsed, work: (read: ReadAccess) => T): T {
-  const path = parsed.db ?? defaultProjectPath();
-  // A project not made yet has no stored climates or price sets: an empty one answers the same.
-  const store = existsSync(path) ? openStore(path, { readonly: true }) : openStore(':memory:');
-  try {
-    return store.read(work);
-  } finally {
-    store.close();
-  }
-}
-
-function printDryRun(output: CliOutput, plan: CsvImportPlan, json: boolean): void {
-  if (json) {
-    output.out(JSON.stringify({ dryRun: true, rows: plan.rows, homes: plan.homes }, null, 2));
-    return;
-  }
-  const rows = plan.homes.map(({ line, file, climateId, priceSetId }) => [
-    String(line),
-    file.name,
-    file.address?.town ?? '',
-    file.heating.fuel,
-    file.leakageTest.points
-      ? `${file.leakageTest.points.length} readings`
-      : formatNumber(file.leakageTest.cfm50 ?? 0),
-    climateId === null ? file.climate.name : `${file.climate.name} (stored)`,
-    priceSetId === null ? 'own' : 'stored set',
-  ]);
-  const titles = ['Line', 'Home', 'Town', 'Fuel', 'CFM50', 'Climate', 'Prices'];
-  const columns = titles.map((title, index) => ({
-    title,
-    align: index === 0 || index === 4 ? ('right' as const) : ('left' as const),
-  }));
-  output.out(textTable(columns, rows));
-  output.out(`${plan.homes.length} homes would be imported (dry run: nothing was written).`);
-}
-
-async function runCsvImport(parsed: Parsed, file: string, output: CliOutput): Promise<number> {
-  const text = await readTextFile(file);
-  if (parsed.dryRun) {
-    const plan = withProjectRead(parsed, (read) => planCsvImport(read, text));
-    if (plan.problems.length > 0) return listCsvProblems(output, plan.problems);
-    printDryRun(output, plan, parsed.json);
-    return EXIT_OK;
-  }
-  // Checked and written in one transaction, so the stored sets it names cannot vanish between.
-  const result = withProject(parsed, (store) =>
-    store.write((write) => {
-      const plan = planCsvImport(write, text);
-      return plan.problems.length > 0 ? plan.problems : { ids: commitCsvImport(write, plan) };
-    }),
-  );
-  if (Array.isArray(result)) return listCsvProblems(output, result);
-  output.out(parsed.json ? JSON.stringify(result) : `imported ${result.ids.length} homes`);
-  return EXIT_OK;
-}
-
-async function runExportCsv(parsed: Parsed, output: CliOutput): Promise<number> {
-  const [file = ''] = expectPositionals(parsed, ['FILE']);
-  const exported = withProject(parsed, (store) =>
-    store.read((read) =>
-      parsed.results ? { csv: resultsCsv(read), leftOut: [] } : exportHomesCsv(read),
-    ),
-  );
-  await writeFile(file, exported.csv, 'utf8');
-  output.out(`wrote ${file}`);
-  for (const { homeId, name, parts } of exported.leftOut) {
-    output.err(`note: home ${homeId} (${name}): not in the CSV: ${parts.join(', ')}`);
-  }
-  return EXIT_OK;
-}
-
-function countTable(title: string, rows: { label: string; homes: number }[]): string {
-  return textTable(
-    [
-      { title, align: 'left' },
-      { title: 'Homes', align: 'right' },
-    ],
-    rows.map(({ label, homes }) => [label, formatNumber(homes)]),
-  );
-}
-
-function portfolioText(summary: PortfolioSummary): string {
-  const { leakage, measures } = summary;
-  const parts = [
-    `Portfolio: ${formatNumber(summary.homes)} homes (${formatNumber(summary.demoHomes)} demo, ` +
-      `${formatNumber(summary.incompleteHomes)} not ready to plan)`,
-  ];
-  const left = leakage.leftOut;
-  const spread = leakage.ach50;
-  parts.push(
-    [
-      `Test-in leakage of ${formatNumber(leakage.homesCounted)} homes ` +
-        `(${formatNumber(leakage.fittedMultipoint)} fitted from several readings): ` +
-        `CFM50 total ${formatNumber(leakage.cfm50Total)}`,
-      spread
-        ? `  ACH50  min ${formatNumber(spread.min, 1)}  P10 ${formatNumber(spread.p10, 1)}  ` +
-          `median ${formatNumber(spread.median, 1)}  P90 ${formatNumber(spread.p90, 1)}  ` +
-          `max ${formatNumber(spread.max, 1)}  mean ${formatNumber(spread.mean, 1)}`
-        : '  ACH50  no tested homes',
-      `  Left out: ${left.noTestIn} without a test-in, ${left.noVolume} without a volume, ` +
-        `${left.readingsUnfit} whose readings could not be fitted`,
-    ].join('\n'),
-  );
-  const label = (value: string | number | null) => (value === null ? '(none)' : String(value));
-  parts.push(
-    countTable(
-      'Heating fuel',
-      summary.byFuel.map((row) => ({ ...row, label: label(row.fuel) })),
-    ),
-  );
-  parts.push(
-    countTable(
-      'Town',
-      summary.byTown.map((row) => ({ ...row, label: label(row.town) })),
-    ),
-  );
-  parts.push(
-    countTable(
-      'Built',
-      summary.byDecade.map((row) => ({
-        ...row,
-        label: row.decade === null ? '(none)' : `${row.decade}s`,
-      })),
-    ),
-  );
-  parts.push(
-    countTable(
-      'Job',
-      summary.byJobStatus.map((row) => ({ ...row, label: row.status })),
-    ),
-  );
-  const statuses = measures.byStatus
-    .map((row) => `${row.status} ${formatNumber(row.count)} (${formatUsd(row.costUsd)})`)
-    .join(', ');
-  parts.push(
-    `Measures: ${formatNumber(measures.count)} (${formatUsd(measures.costUsd)})${statuses ? `: ${statuses}` : ''}`,
-  );
-  if (measures.byType.length > 0) {
-    parts.push(
-      textTable(
-        [
-          { title: 'Measure type', align: 'left' },
-          { title: 'Count', align: 'right' },
-          { title: 'Planned', align: 'right' },
-          { title: 'Planned cost', align: 'right' },
-        ],
-        measures.byType.map((row) => [
-          row.type,
-          formatNumber(row.count),
-          formatNumber(row.plannedCount),
-          formatUsd(row.plannedCostUsd, { cents: true }),
-        ]),
-      ),
-    );
-  }
-  return parts.join('\n\n');
-}
-
-function runPortfolio(parsed: Parsed, output: CliOutput): number {
-  expectPositionals(parsed, []);
-  const summary = withProject(parsed, (store) => store.read(portfolioSummary));
-  output.out(parsed.json ? JSON.stringify(summary, null, 2) : portfolioText(summary));
-  return EXIT_OK;
-}
-
-function runBackup(parsed: Parsed, output: CliOutput): number {
-  const [file = ''] = expectPositionals(parsed, ['FILE']);
-  withProject(parsed, (store) => backupTo(store, file));
-  output.out(`wrote ${file}`);
-  return EXIT_OK;
-}
-
-function runRestore(parsed: Parsed, output: CliOutput): number {
-  const [file = ''] = expectPositionals(parsed, ['FILE']);
-  const path = parsed.db ?? defaultProjectPath();
-  restoreFrom(file, path);
-  // Opening once applies any migration the restored copy needs.
-  withProject(parsed, () => undefined);
-  output.out(`restored ${path} from ${file}`);
-  return EXIT_OK;
-}
-
-function runDemo(parsed: Parsed, output: CliOutput): number {
-  expectPositionals(parsed, []);
-  const reports = DEMO_HOMES.map((home) => evaluateHomeReport(home));
-  if (!parsed.json) {
-    output.out(
-      `${DEMO_PROGRAM_NAME} (an invented demo scenario: every home, price and climate is made up)\n`,
-    );
-  }
-  printReports(output, reports, parsed.json, false);
-  return EXIT_OK;
-}
-
-function listProblems(output: CliOutput, heading: string, problems: readonly InputProblem[]): void {
+/** Problems in the form `path: message`, one a line, under a heading. */
+function listProblems(output: CliOutput, heading: string, lines: readonly string[]): void {
   output.err(heading);
-  for (const problem of problems) {
-    output.err(`  ${problem.path === '' ? '(file)' : problem.path}: ${problem.message}`);
+  for (const line of lines) output.err(`  ${line}`);
+}
+
+async function dispatch(parsed: Parsed, output: CliOutput): Promise<number> {
+  switch (parsed.command) {
+    case 'evaluate':
+      return runEvaluate(parsed, output);
+    case 'list':
+      return runList(parsed, output);
+    case 'import':
+      return runImport(parsed, output);
+    case 'export':
+      return runExport(parsed, output);
+    case 'export-csv':
+      return runExportCsv(parsed, output);
+    case 'portfolio':
+      return runPortfolio(parsed, output);
+    case 'backup':
+      return runBackup(parsed, output);
+    case 'restore':
+      return runRestore(parsed, output);
+    case 'demo':
+      return runDemo(parsed, output);
+    case undefined:
+    case 'help':
+      output.out(USAGE);
+      return EXIT_OK;
+    default:
+      throw new UsageError(`unknown command "${parsed.command}"`);
   }
 }
 
@@ -468,37 +138,33 @@ export async function main(
   output: CliOutput = processOutput,
 ): Promise<number> {
   try {
-    const parsed = parse(argv);
-    switch (parsed.command) {
-      case 'evaluate':
-        return await runEvaluate(parsed, output);
-      case 'list':
-        return runList(parsed, output);
-      case 'import':
-        return await runImport(parsed, output);
-      case 'export':
-        return await runExport(parsed, output);
-      case 'export-csv':
-        return await runExportCsv(parsed, output);
-      case 'portfolio':
-        return runPortfolio(parsed, output);
-      case 'backup':
-        return runBackup(parsed, output);
-      case 'restore':
-        return runRestore(parsed, output);
-      case 'demo':
-        return runDemo(parsed, output);
-      case undefined:
-      case 'help':
-        output.out(USAGE);
-        return EXIT_OK;
-      default:
-        throw new UsageError(`unknown command "${parsed.command}"`);
-    }
+    return await dispatch(parse(argv), output);
   } catch (error) {
-    if (error instanceof CsvImportError) return listCsvProblems(output, error.problems);
+    if (error instanceof CsvRefusal) return listCsvProblems(output, error.problems);
+    if (error instanceof ChannelFailure) {
+      const { kind, message, field } = error.failure;
+      if (kind === 'unexpected') {
+        output.err(`sealwork: ${message}`);
+        return EXIT_UNEXPECTED;
+      }
+      if (kind === 'invalid') {
+        const lines = error.failure.problems?.map(
+          (problem) => `${problem.path === '' ? '(file)' : problem.path}: ${problem.message}`,
+        );
+        listProblems(output, 'The input cannot be used:', lines ?? message.split('\n'));
+      } else {
+        output.err(`sealwork: ${message}${field ? ` (${field})` : ''}`);
+      }
+      return EXIT_BAD_INPUT;
+    }
     if (error instanceof InputError) {
-      listProblems(output, 'The home file cannot be used:', error.problems);
+      listProblems(
+        output,
+        'The input cannot be used:',
+        error.problems.map(
+          (problem) => `${problem.path === '' ? '(file)' : problem.path}: ${problem.message}`,
+        ),
+      );
       return EXIT_BAD_INPUT;
     }
     if (error instanceof DbError) {

@@ -1,6 +1,7 @@
 /**
  * What a refused request's reply must look like: `{ ok: false, error: { kind, message,
- * field? } }` and nothing else, with a message a person can read (no stack, no validator or
+ * field?, problems? } }` and nothing else (`problems` only with kind `invalid`: each a
+ * `{ path, message }` in plain words), with a message a person can read (no stack, no validator or
  * engine names, no file paths, not an echo of a huge input).
  */
 
@@ -57,8 +58,24 @@ export function refusalProblems(
   const error = reply.error;
   if (!isRecord(error)) return ['error is not an object'];
   const problems: string[] = [];
-  const extra = Object.keys(error).filter((key) => !['kind', 'message', 'field'].includes(key));
+  const extra = Object.keys(error).filter(
+    (key) => !['kind', 'message', 'field', 'problems'].includes(key),
+  );
   if (extra.length > 0) problems.push(`error has ${extra.join(', ')}`);
+  if ('problems' in error) {
+    const list = error.problems;
+    if (expected.kind !== 'invalid')
+      problems.push('problems listed on a refusal that is not invalid');
+    if (!Array.isArray(list) || list.length === 0)
+      problems.push('problems is not a list of problems');
+    else {
+      for (const item of list.slice(0, 20)) {
+        if (!isRecord(item) || typeof item.path !== 'string')
+          problems.push('a problem has no path');
+        else problems.push(...messageProblems(item.message));
+      }
+    }
+  }
   if (error.kind !== expected.kind) problems.push(`kind ${String(error.kind)}`);
   problems.push(...messageProblems(error.message));
   if ('field' in error && (typeof error.field !== 'string' || error.field === '')) {
