@@ -84,6 +84,7 @@ function buildMenu(window: BrowserWindow, store: Store): Menu {
         accelerator: item.accelerator,
         click: () => {
           if (command === 'backup') void backupWithDialog(window, store);
+          else if (command === 'importFile') void importWithDialog(window, store);
           else if (command === 'printProposal') void printProposal(window);
           else if (command) send(command);
         },
@@ -106,6 +107,72 @@ async function backupWithDialog(window: BrowserWindow, store: Store): Promise<vo
   } catch (error) {
     dialog.showErrorBox('The backup was not written', (error as Error).message);
   }
+}
+
+/** Imports a home file or a portfolio CSV the user picks, then tells the page to refresh. */
+async function importWithDialog(window: BrowserWindow, store: Store): Promise<void> {
+  const choice = await dialog.showOpenDialog(window, {
+    title: 'Import a home file or a portfolio CSV',
+    properties: ['openFile'],
+    filters: [{ name: 'Home file or portfolio CSV', extensions: ['json', 'csv'] }],
+  });
+  const path = choice.filePaths[0];
+  if (choice.canceled || !path) return;
+  const text = readFileSync(path, 'utf8');
+  const context = { store };
+  let failure: string | null = null;
+  if (path.toLowerCase().endsWith('.csv')) {
+    const reply = callChannel(context, 'portfolio.importCsv', { csv: text });
+    if (!reply.ok) failure = reply.error.message;
+    else if (reply.value.problems.length > 0) {
+      failure = reply.value.problems
+        .slice(0, 20)
+        .map((problem) => `line ${problem.line}, ${problem.column}: ${problem.message}`)
+        .join('\n');
+    }
+  } else {
+    let file: unknown;
+    try {
+      file = JSON.parse(text) as unknown;
+    } catch {
+      failure = 'The file is not a Sealwork home file (not JSON).';
+    }
+    if (failure === null) {
+      const reply = callChannel(context, 'homeFile.import', { file });
+      if (!reply.ok) failure = reply.error.message;
+    }
+  }
+  if (failure !== null) {
+    dialog.showErrorBox('Nothing was imported', failure);
+    return;
+  }
+  window.webContents.send('sealwork:menu', 'refresh');
+}
+
+/** Writes a stored home as a home file where the user chooses (asked for by the page). */
+function exposeHomeFileSaving(store: Store): void {
+  ipcMain.handle('sealwork:desktop.saveHomeFile', async (event, request: unknown) => {
+    const frame = event.senderFrame;
+    const trusted =
+      frame !== null &&
+      isTrustedSender({ url: frame.url, isMainFrame: frame === event.sender.mainFrame });
+    const window = BrowserWindow.fromWebContents(event.sender);
+    if (!trusted || !window)
+      return {
+        ok: false,
+        error: { kind: 'forbidden', message: 'refused: not the Sealwork window' },
+      };
+    const exported = callChannel({ store }, 'homeFile.export', request);
+    if (!exported.ok) return exported;
+    const choice = await dialog.showSaveDialog(window, {
+      title: 'Export home file',
+      defaultPath: `${exported.value.name.replace(/[^\w -]+/g, '').slice(0, 60) || 'home'}.json`,
+      filters: [{ name: 'Sealwork home file', extensions: ['json'] }],
+    });
+    if (choice.canceled || !choice.filePath) return { ok: true, value: { saved: false } };
+    writeFileSync(choice.filePath, `${JSON.stringify(exported.value, null, 2)}\n`, 'utf8');
+    return { ok: true, value: { saved: true } };
+  });
 }
 
 /** Prints the page (the proposal view) to a PDF the user places. */
@@ -188,6 +255,7 @@ function start(): void {
     });
     serveApp();
     exposeChannels(store);
+    exposeHomeFileSaving(store);
     let window = createWindow(store);
     app.on('second-instance', () => {
       if (window.isMinimized()) window.restore();

@@ -19,4 +19,12 @@ function onMenuCommand(listener: (command: string) => void): void {
   });
 }
 
-contextBridge.exposeInMainWorld('sealwork', Object.freeze({ ...bridge, onMenuCommand }));
+/** Asks the main process to save a stored home as a file, with the native save dialog. */
+function saveHomeFile(request: { id: number }): Promise<unknown> {
+  return ipcRenderer.invoke('sealwork:desktop.saveHomeFile', request);
+}
+
+contextBridge.exposeInMainWorld(
+  'sealwork',
+  Object.freeze({ ...bridge, onMenuCommand, saveHomeFile }),
+);
