@@ -4,7 +4,7 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['node_modules/**', 'dist/**', 'coverage/**', 'test-output/**'] },
+  { ignores: ['node_modules/**', 'dist/**', 'ui/dist/**', 'coverage/**', 'test-output/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -35,6 +35,23 @@ export function electronBinary(): string | null {
   }
 }
 
+/**
+ * Builds the screens into ui/dist when they are not built yet (a fresh clone), so `npm start`
+ * right after `npm ci` shows them.
+ */
+async function ensureScreensBuilt(): Promise<boolean> {
+  if (existsSync(join(UI_ROOT, 'index.html'))) return true;
+  try {
+    const { build } = await import('vite');
+    console.log('Building the screens (first start)…');
+    await build({ configFile: join(HERE, '..', 'ui', 'vite.config.mts'), logLevel: 'warn' });
+    return existsSync(join(UI_ROOT, 'index.html'));
+  } catch (error) {
+    console.error(`The screens could not be built: ${(error as Error).message}`);
+    return false;
+  }
+}
+
 function openInBrowser(url: string): void {
   const command =
     process.platform === 'darwin' ? 'open' : process.platform === 'win32' ? 'explorer' : 'xdg-open';
@@ -53,6 +70,7 @@ export async function launch(argv: readonly string[]): Promise<void> {
       browser: { type: 'boolean' },
     },
   });
+  const screens = await ensureScreensBuilt();
   const binary = values.browser ? null : electronBinary();
   if (binary) {
     const mainBundle = await buildDesktop(join(HERE, '..'));
@@ -66,13 +84,12 @@ export async function launch(argv: readonly string[]): Promise<void> {
   });
   const host = await startBrowserHost({
     context: { store },
-    uiRoot: existsSync(UI_ROOT) ? UI_ROOT : null,
+    uiRoot: screens ? UI_ROOT : null,
   });
   console.log(
     `Sealwork is running in your browser at ${host.url} (token ${host.token}); project ${path}`,
   );
-  if (!existsSync(UI_ROOT))
-    console.log('The screens are not built yet; the channels answer at /api/.');
+  if (!screens) console.log('The screens are not available; the channels answer at /api/.');
   if (!values['no-open']) openInBrowser(host.url);
   const stop = () => {
     void host.close().then(() => {

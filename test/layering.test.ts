@@ -107,6 +107,12 @@ const BUILTINS = new Set([
   'process',
 ]);
 
+/**
+ * Build configuration (vite.config.*) runs in Node at build time, not in the layer it
+ * configures, so it may import build tools; it is left out of the check by name.
+ */
+const BUILD_CONFIG = /^vite\.config\.[cm]?[jt]s$/;
+
 function sourceFiles(folder: string): string[] {
   const absolute = join(ROOT, folder);
   let entries: string[];
@@ -117,9 +123,11 @@ function sourceFiles(folder: string): string[] {
   }
   return entries.flatMap((entry) => {
     const path = join(folder, entry);
-    if (statSync(join(ROOT, path)).isDirectory())
-      return entry === 'node_modules' ? [] : sourceFiles(path);
-    return /\.(ts|js|svelte)$/.test(entry) ? [path.split(sep).join('/')] : [];
+    if (statSync(join(ROOT, path)).isDirectory()) {
+      return entry === 'node_modules' || entry === 'dist' ? [] : sourceFiles(path);
+    }
+    if (BUILD_CONFIG.test(entry)) return [];
+    return /\.(ts|mts|js|mjs|svelte)$/.test(entry) ? [path.split(sep).join('/')] : [];
   });
 }
 

@@ -1,0 +1,56 @@
+/**
+ * Words the screens show for the store's codes: fuels and job states as people say them.
+ * A code the table does not know (a newer file) is shown as stored rather than hidden.
+ */
+import type { Fuel } from '../core/schema.ts';
+import type { ChannelResponse } from '../electron/channels.ts';
+
+type JobStatus = ChannelResponse<'homes.list'>[number]['jobStatus'];
+
+const FUEL_WORDS: Readonly<Record<Fuel, string>> = {
+  naturalGas: 'Natural gas',
+  propane: 'Propane',
+  heatingOil: 'Heating oil',
+  kerosene: 'Kerosene',
+  electricity: 'Electric',
+  wood: 'Wood',
+  pellets: 'Pellets',
+};
+
+const JOB_WORDS: Readonly<Record<JobStatus, string>> = {
+  assessed: 'Assessed',
+  scheduled: 'Scheduled',
+  inProgress: 'Work under way',
+  done: 'Work done',
+  closed: 'Closed',
+};
+
+function isFuel(code: string): code is Fuel {
+  return Object.hasOwn(FUEL_WORDS, code);
+}
+
+/** The heating fuel in words, or a dash when the home has none recorded. */
+export function fuelWords(code: string | null): string {
+  if (code === null) return '—';
+  return isFuel(code) ? FUEL_WORDS[code] : code;
+}
+
+/** A job's state in words. */
+export function jobWords(status: JobStatus): string {
+  return JOB_WORDS[status] ?? status;
+}
+
+/** "1 home", "16 homes". */
+export function homesCountWords(count: number): string {
+  return count === 1 ? '1 home' : `${count} homes`;
+}
+
+/**
+ * A home's name as a short title and the description after its first ": ", so a list shows
+ * "14 Millrace Lane" boldly with the house's description below it; null when there is none.
+ */
+export function nameParts(name: string): { title: string; detail: string | null } {
+  const at = name.indexOf(': ');
+  if (at <= 0 || at + 2 >= name.length) return { title: name, detail: null };
+  return { title: name.slice(0, at), detail: name.slice(at + 2) };
+}
