@@ -102,7 +102,7 @@ export function exportHomeFile(read: ReadAccess, homeId: number): HomeFile {
 }
 
 /** The parts of a home file a home row stores as its data. */
-function dataOf(file: HomeFile): HomeData {
+export function dataOf(file: HomeFile): HomeData {
   const {
     format: _format,
     name: _name,

@@ -19,13 +19,14 @@ const HERE = dirname(fileURLToPath(import.meta.url));
 const UI_ROOT = join(HERE, '..', 'ui', 'dist');
 
 /**
- * The Electron binary's path when it is really installed, else null. Reads the package's
+ * The Electron binary's path when it is really installed, else null (`packageFolder`, the
+ * electron package's folder, is found through Node's resolution unless given). Reads the package's
  * `path.txt` rather than `require('electron')`, which tries to download a missing binary.
  */
-export function electronBinary(): string | null {
+export function electronBinary(packageFolder?: string): string | null {
   try {
-    const packageJson = createRequire(import.meta.url).resolve('electron/package.json');
-    const folder = dirname(packageJson);
+    const folder =
+      packageFolder ?? dirname(createRequire(import.meta.url).resolve('electron/package.json'));
     const pathFile = join(folder, 'path.txt');
     if (!existsSync(pathFile)) return null;
     const binary = join(folder, 'dist', readFileSync(pathFile, 'utf8').trim());

@@ -3,7 +3,18 @@
  * behind one checkpoint, the native menu and dialogs, print to PDF, the window's size
  * remembered, one instance at a time. Security rules live in security.ts as plain functions.
  */
-import { app, BrowserWindow, dialog, ipcMain, Menu, net, protocol, shell } from 'electron';
+import {
+  app,
+  BrowserWindow,
+  dialog,
+  ipcMain,
+  Menu,
+  net,
+  protocol,
+  screen,
+  session,
+  shell,
+} from 'electron';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join, normalize, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -14,7 +25,7 @@ import type { Store } from '../db/store.ts';
 import { CHANNEL_NAMES, ipcName } from './channel-names.ts';
 import { callChannel, replyForError, type ChannelName } from './channels.ts';
 import { menuTemplate, type MenuItemTemplate } from './desktop/menu.ts';
-import { ensureElectronAddon } from './desktop/native-addon.ts';
+import { electronAddonPath, ensureElectronAddon } from './desktop/native-addon.ts';
 import { loadWindowBounds, saveWindowBounds } from './desktop/window-state.ts';
 import {
   CONTENT_SECURITY_POLICY,
@@ -24,7 +35,10 @@ import {
   windowOpenDecision,
 } from './security.ts';
 
-const PROJECT_ROOT = join(dirname(process.argv[1] ?? '.'), '..', '..');
+/** The app's folder: the package when installed, else the repository (main runs from dist/electron). */
+const PROJECT_ROOT = app.isPackaged
+  ? app.getAppPath()
+  : join(dirname(process.argv[1] ?? '.'), '..', '..');
 const UI_ROOT = join(PROJECT_ROOT, 'ui', 'dist');
 
 protocol.registerSchemesAsPrivileged([
@@ -36,9 +50,13 @@ function serveApp(): void {
   protocol.handle('app', async (request) => {
     const url = new URL(request.url);
     if (url.host !== 'sealwork') return new Response('Not Found', { status: 404 });
-    const file = normalize(
-      join(UI_ROOT, url.pathname === '/' ? 'index.html' : decodeURIComponent(url.pathname)),
-    );
+    let wanted: string;
+    try {
+      wanted = url.pathname === '/' ? 'index.html' : decodeURIComponent(url.pathname);
+    } catch {
+      return new Response('Not Found', { status: 404 }); // a malformed escape names no file
+    }
+    const file = normalize(join(UI_ROOT, wanted));
     if (!file.startsWith(UI_ROOT + sep)) return new Response('Not Found', { status: 404 });
     const response = await net.fetch(pathToFileURL(file).toString());
     const headers = new Headers(response.headers);
@@ -48,25 +66,40 @@ function serveApp(): void {
   });
 }
 
-/** Every channel behind one checkpoint: the sender must be the app's own main frame. */
+const REFUSED = {
+  ok: false,
+  error: { kind: 'forbidden', message: 'refused: not the Sealwork window' },
+};
+
+/**
+ * The one checkpoint every IPC handler passes: the sender must be the app's own page in the
+ * main frame (its URL parsed, not compared as text); anything else is refused before work.
+ */
+function guarded(
+  handler: (event: Electron.IpcMainInvokeEvent, request: unknown) => unknown,
+): (event: Electron.IpcMainInvokeEvent, request: unknown) => unknown {
+  return (event, request) => {
+    const frame = event.senderFrame;
+    const trusted =
+      frame !== null &&
+      isTrustedSender({ url: frame.url, isMainFrame: frame === event.sender.mainFrame });
+    return trusted ? handler(event, request) : REFUSED;
+  };
+}
+
+/** Every channel of the table, each behind the checkpoint. */
 function exposeChannels(store: Store): void {
   for (const name of CHANNEL_NAMES) {
-    ipcMain.handle(ipcName(name), (event, request: unknown) => {
-      const frame = event.senderFrame;
-      const trusted =
-        frame !== null &&
-        isTrustedSender({ url: frame.url, isMainFrame: frame === event.sender.mainFrame });
-      if (!trusted)
-        return {
-          ok: false,
-          error: { kind: 'forbidden', message: 'refused: not the Sealwork window' },
-        };
-      try {
-        return callChannel({ store }, name as ChannelName, request);
-      } catch (error) {
-        return replyForError(error);
-      }
-    });
+    ipcMain.handle(
+      ipcName(name),
+      guarded((_event, request) => {
+        try {
+          return callChannel({ store }, name as ChannelName, request);
+        } catch (error) {
+          return replyForError(error);
+        }
+      }),
+    );
   }
 }
 
@@ -151,28 +184,23 @@ async function importWithDialog(window: BrowserWindow, store: Store): Promise<vo
 
 /** Writes a stored home as a home file where the user chooses (asked for by the page). */
 function exposeHomeFileSaving(store: Store): void {
-  ipcMain.handle('sealwork:desktop.saveHomeFile', async (event, request: unknown) => {
-    const frame = event.senderFrame;
-    const trusted =
-      frame !== null &&
-      isTrustedSender({ url: frame.url, isMainFrame: frame === event.sender.mainFrame });
-    const window = BrowserWindow.fromWebContents(event.sender);
-    if (!trusted || !window)
-      return {
-        ok: false,
-        error: { kind: 'forbidden', message: 'refused: not the Sealwork window' },
-      };
-    const exported = callChannel({ store }, 'homeFile.export', request);
-    if (!exported.ok) return exported;
-    const choice = await dialog.showSaveDialog(window, {
-      title: 'Export home file',
-      defaultPath: `${exported.value.name.replace(/[^\w -]+/g, '').slice(0, 60) || 'home'}.json`,
-      filters: [{ name: 'Sealwork home file', extensions: ['json'] }],
-    });
-    if (choice.canceled || !choice.filePath) return { ok: true, value: { saved: false } };
-    writeFileSync(choice.filePath, `${JSON.stringify(exported.value, null, 2)}\n`, 'utf8');
-    return { ok: true, value: { saved: true } };
-  });
+  ipcMain.handle(
+    'sealwork:desktop.saveHomeFile',
+    guarded(async (event, request) => {
+      const window = BrowserWindow.fromWebContents(event.sender);
+      if (!window) return REFUSED;
+      const exported = callChannel({ store }, 'homeFile.export', request);
+      if (!exported.ok) return exported;
+      const choice = await dialog.showSaveDialog(window, {
+        title: 'Export home file',
+        defaultPath: `${exported.value.name.replace(/[^\w -]+/g, '').slice(0, 60) || 'home'}.json`,
+        filters: [{ name: 'Sealwork home file', extensions: ['json'] }],
+      });
+      if (choice.canceled || !choice.filePath) return { ok: true, value: { saved: false } };
+      writeFileSync(choice.filePath, `${JSON.stringify(exported.value, null, 2)}\n`, 'utf8');
+      return { ok: true, value: { saved: true } };
+    }),
+  );
 }
 
 /** Prints the page (the proposal view) to a PDF the user places. */
@@ -184,13 +212,17 @@ async function printProposal(window: BrowserWindow): Promise<void> {
     filters: [{ name: 'PDF', extensions: ['pdf'] }],
   });
   if (choice.canceled || !choice.filePath) return;
-  const pdf = await window.webContents.printToPDF({ printBackground: true, pageSize: 'Letter' });
-  writeFileSync(choice.filePath, pdf);
+  try {
+    const pdf = await window.webContents.printToPDF({ printBackground: true, pageSize: 'Letter' });
+    writeFileSync(choice.filePath, pdf);
+  } catch (error) {
+    dialog.showErrorBox('The proposal was not saved', (error as Error).message);
+  }
 }
 
 function createWindow(store: Store): BrowserWindow {
   const statePath = join(app.getPath('userData'), 'window-state.json');
-  const bounds = loadWindowBounds(statePath);
+  const bounds = onScreen(loadWindowBounds(statePath));
   const window = new BrowserWindow({
     ...bounds,
     minWidth: 1024,
@@ -204,6 +236,8 @@ function createWindow(store: Store): BrowserWindow {
       nodeIntegration: false,
       webSecurity: true,
       spellcheck: true,
+      devTools: !app.isPackaged,
+      disableBlinkFeatures: 'Auxclick',
     },
   });
   if (bounds.maximized) window.maximize();
@@ -226,6 +260,33 @@ function createWindow(store: Store): BrowserWindow {
   return window;
 }
 
+/** No page may use the camera, microphone, location, notifications or any other permission. */
+function denyPermissions(): void {
+  session.defaultSession.setPermissionRequestHandler((_contents, _permission, answer) =>
+    answer(false),
+  );
+  session.defaultSession.setPermissionCheckHandler(() => false);
+}
+
+/** Bounds on a screen that still exists: a window saved on a removed monitor comes back. */
+function onScreen(
+  bounds: ReturnType<typeof loadWindowBounds>,
+): ReturnType<typeof loadWindowBounds> {
+  if (bounds.x === undefined || bounds.y === undefined) return bounds;
+  const area = screen.getDisplayMatching({
+    x: bounds.x,
+    y: bounds.y,
+    width: bounds.width,
+    height: bounds.height,
+  }).workArea;
+  const inside =
+    bounds.x >= area.x &&
+    bounds.y >= area.y &&
+    bounds.x + 100 <= area.x + area.width &&
+    bounds.y + 100 <= area.y + area.height;
+  return inside ? bounds : { width: bounds.width, height: bounds.height };
+}
+
 function start(): void {
   if (!app.requestSingleInstanceLock()) {
     app.quit();
@@ -242,12 +303,13 @@ function start(): void {
     strict: false,
   });
   void app.whenReady().then(() => {
-    const version = JSON.parse(
-      readFileSync(join(PROJECT_ROOT, 'node_modules', 'electron', 'package.json'), 'utf8'),
-    ) as {
-      version: string;
-    };
-    const nativeBinding = ensureElectronAddon(PROJECT_ROOT, version.version);
+    denyPermissions();
+    const electronVersion = process.versions.electron ?? '';
+    // Installed, the addon ships beside the app (unpacked from the asar); from the repository
+    // it is built once for this Electron.
+    const nativeBinding = app.isPackaged
+      ? electronAddonPath(PROJECT_ROOT, electronVersion).replace('app.asar', 'app.asar.unpacked')
+      : ensureElectronAddon(PROJECT_ROOT, electronVersion);
     const path = typeof values.db === 'string' ? values.db : defaultProjectPath();
     const { store } = openProject(path, {
       demoWhenNew: values.db === undefined || values.demo === true,

@@ -1,0 +1,73 @@
+/**
+ * The channels of homes in and out as files: one home as a home file, and the whole
+ * portfolio as CSV (checked, imported, exported) with its summary.
+ */
+import { z } from 'zod';
+import { evaluateHomeReport } from '../../core/evaluate.ts';
+import type { EvaluationReport } from '../../core/report.ts';
+import type { HomeFile } from '../../core/schema.ts';
+import { exportHomesCsv, resultsCsv, type HomesCsvExport } from '../../db/csv-export.ts';
+import {
+  commitCsvImport,
+  planCsvImport,
+  type CsvImportPlan,
+  type CsvProblem,
+} from '../../db/csv-import.ts';
+import { exportHomeFile, importHomeFile } from '../../db/home-file.ts';
+import { portfolioSummary, type PortfolioSummary } from '../../db/portfolio.ts';
+import { byId, channel, id, nothing, recordOf } from './_define.ts';
+
+/** The largest portfolio CSV a request may carry, characters (10,000 homes fit easily). */
+const MAX_CSV_CHARS = 8 * 1024 * 1024;
+
+/** The `homeFile.*` and `portfolio.*` channels. */
+export const fileAndPortfolioChannels = {
+  'homeFile.import': channel({
+    request: z.strictObject({ file: z.unknown() }),
+    response: byId,
+    handle: ({ store }, request) => ({
+      id: store.write((write) => importHomeFile(write, request.file)),
+    }),
+  }),
+  'homeFile.export': channel({
+    request: byId,
+    response: recordOf<HomeFile>(),
+    handle: ({ store }, request) => store.read((read) => exportHomeFile(read, request.id)),
+  }),
+  'homeFile.evaluate': channel({
+    request: z.strictObject({ file: z.unknown() }),
+    response: recordOf<EvaluationReport>(),
+    handle: (_context, request) => evaluateHomeReport(request.file),
+  }),
+  'portfolio.summary': channel({
+    request: nothing,
+    response: recordOf<PortfolioSummary>(),
+    handle: ({ store }) => store.read((read) => portfolioSummary(read)),
+  }),
+  'portfolio.checkCsv': channel({
+    request: z.strictObject({ csv: z.string().max(MAX_CSV_CHARS) }),
+    response: recordOf<CsvImportPlan>(),
+    handle: ({ store }, request) => store.read((read) => planCsvImport(read, request.csv)),
+  }),
+  'portfolio.importCsv': channel({
+    request: z.strictObject({ csv: z.string().max(MAX_CSV_CHARS) }),
+    response: z.strictObject({ ids: z.array(id), problems: z.array(recordOf<CsvProblem>()) }),
+    handle: ({ store }, request) =>
+      // Checked and written in one transaction, so the stored sets it names cannot vanish between.
+      store.write((write) => {
+        const plan = planCsvImport(write, request.csv);
+        if (plan.problems.length > 0) return { ids: [], problems: plan.problems };
+        return { ids: commitCsvImport(write, plan), problems: [] };
+      }),
+  }),
+  'portfolio.homesCsv': channel({
+    request: nothing,
+    response: recordOf<HomesCsvExport>(),
+    handle: ({ store }) => store.read((read) => exportHomesCsv(read)),
+  }),
+  'portfolio.resultsCsv': channel({
+    request: nothing,
+    response: z.strictObject({ csv: z.string() }),
+    handle: ({ store }) => store.read((read) => ({ csv: resultsCsv(read) })),
+  }),
+} as const;

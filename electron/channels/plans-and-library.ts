@@ -1,0 +1,100 @@
+/** The channels of a home's plan (evaluated and saved) and of the project's measure library. */
+import { z } from 'zod';
+import { evaluateHomeReport } from '../../core/evaluate.ts';
+import { MEASURE_LIBRARY, type MeasureType } from '../../core/measure-library.ts';
+import type { EvaluationReport } from '../../core/report.ts';
+import { ENGINE_VERSION } from '../../core/version.ts';
+import { exportHomeFile } from '../../db/home-file.ts';
+import {
+  effectiveLibrary,
+  listLibraryEdits,
+  resetLibraryEdit,
+  saveLibraryEdit,
+} from '../../db/repositories/library.ts';
+import { getPlan, listPlans, savePlan, type SavedPlan } from '../../db/repositories/plans.ts';
+import {
+  byId,
+  channel,
+  done,
+  DONE,
+  id,
+  nothing,
+  recordOf,
+  type ChannelContext,
+} from './_define.ts';
+
+/** The evaluation report of a stored home, with the project's library edits. */
+function evaluateStored(context: ChannelContext, homeId: number) {
+  return context.store.read((read) =>
+    evaluateHomeReport(exportHomeFile(read, homeId), { library: effectiveLibrary(read) }),
+  );
+}
+
+/** The `plan.evaluate`, `plans.*` and `library.*` channels. */
+export const planAndLibraryChannels = {
+  'plan.evaluate': channel({
+    request: z.strictObject({ homeId: id }),
+    response: recordOf<EvaluationReport>(),
+    handle: (context, request) => evaluateStored(context, request.homeId),
+  }),
+  'plans.save': channel({
+    request: z.strictObject({ homeId: id, name: z.string().trim().min(1).max(200) }),
+    response: byId,
+    handle: ({ store }, request) => ({
+      id: store.write((write) => {
+        const inputs = exportHomeFile(write, request.homeId);
+        const result = evaluateHomeReport(inputs, { library: effectiveLibrary(write) });
+        return savePlan(write, {
+          homeId: request.homeId,
+          name: request.name,
+          engineVersion: ENGINE_VERSION,
+          inputs,
+          result,
+        });
+      }),
+    }),
+  }),
+  'plans.list': channel({
+    request: z.strictObject({ homeId: id }),
+    response: z.array(recordOf<SavedPlan>()),
+    handle: ({ store }, request) => store.read((read) => listPlans(read, request.homeId)),
+  }),
+  'plans.get': channel({
+    request: byId,
+    response: recordOf<SavedPlan>(),
+    handle: ({ store }, request) => store.read((read) => getPlan(read, request.id)),
+  }),
+  'library.list': channel({
+    request: nothing,
+    response: z.strictObject({
+      types: z.array(recordOf<MeasureType>()),
+      editedIds: z.array(z.string()),
+    }),
+    handle: ({ store }) =>
+      store.read((read) => ({
+        types: [...effectiveLibrary(read).all()],
+        editedIds: [...listLibraryEdits(read).keys()],
+      })),
+  }),
+  'library.shipped': channel({
+    request: nothing,
+    response: z.array(recordOf<MeasureType>()),
+    handle: () => [...MEASURE_LIBRARY],
+  }),
+  'library.saveEdit': channel({
+    request: z.strictObject({ typeId: z.string().max(64), edit: z.unknown() }),
+    response: done,
+    handle: ({ store }, request) => {
+      store.write((write) => saveLibraryEdit(write, request.typeId, request.edit));
+      return DONE;
+    },
+  }),
+  'library.reset': channel({
+    request: z.strictObject({ typeId: z.string().max(64) }),
+    response: done,
+    handle: ({ store }, request) => {
+      store.write((write) => resetLibraryEdit(write, request.typeId));
+      return DONE;
+    },
+  }),
+} as const;
