@@ -3,7 +3,8 @@
  * repositories one part at a time (home, tests, measures), the way the screens build a home,
  * rather than through the importer under test elsewhere.
  */
-import { parseHomeFile, type HomeData, type HomeFile } from '../../../core/schema.ts';
+import { parseHomeFile } from '../../../core/schema.ts';
+import { dataOf as dataOfFile } from '../../../db/home-file.ts';
 import { createHome, type HomeInput } from '../../../db/repositories/homes.ts';
 import { addLeakageTest } from '../../../db/repositories/leakage-tests.ts';
 import { addMeasure } from '../../../db/repositories/measures.ts';
@@ -40,28 +41,8 @@ export function openTempProject(options: StoreOptions = {}): TempProject {
   };
 }
 
-/**
- * The parts of a home file a home row keeps as its data (everything but name, address, client,
- * notes, tests and measures).
- *
- * @param file - a valid home file
- * @returns the home's data
- */
-export function dataOfFile(file: HomeFile): HomeData {
-  const {
-    format: _format,
-    name: _name,
-    demo: _demo,
-    address: _address,
-    client: _client,
-    notes: _notes,
-    leakageTest: _leakageTest,
-    otherLeakageTests: _others,
-    measures: _measures,
-    ...data
-  } = file;
-  return data;
-}
+/** The parts of a home file a home row keeps as its data (the store's own split). */
+export { dataOfFile };
 
 /**
  * Stores a home file through createHome, addLeakageTest and addMeasure.
