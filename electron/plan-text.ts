@@ -113,7 +113,10 @@ export function planText(report: EvaluationReport): string {
   lines.push(
     `            saves ${formatUsd(pkg.annualSavingsUsd)}/yr (range ${formatUsd(pkg.annualSavingsUsdRange.low)}–` +
       `${formatUsd(pkg.annualSavingsUsdRange.high)}), ${formatNumber(pkg.annualSavings.heatingFuelUnits, 1)} ${unit}` +
-      `, ${formatNumber(pkg.annualSavings.coolingKwh, 0)} kWh cooling, ${formatNumber(pkg.annualSavings.co2Kg, 0)} kg CO2`,
+      (pkg.annualSavings.coolingKwh === 0
+        ? ''
+        : `, ${formatNumber(pkg.annualSavings.coolingKwh, 0)} kWh cooling`) +
+      `, ${formatNumber(pkg.annualSavings.co2Kg, 0)} kg CO2`,
   );
   lines.push(
     `            costs ${formatUsd(pkg.costUsd, { cents: true })}; NPV ${formatUsd(pkg.npvUsd, { cents: true })}; ` +
