@@ -4,7 +4,7 @@
 import Decimal from 'decimal.js';
 import * as formula from '@formulajs/formulajs';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../core/errors.ts';
+import { expectInputError } from '../_lib/expect-input-error.ts';
 import {
   adjustedInternalRateOfReturn,
   capitalRecoveryFactor,
@@ -497,18 +497,6 @@ describe('edges', () => {
 });
 
 describe('bad input', () => {
-  function expectInputError(run: () => unknown, field: string, wording: RegExp): void {
-    let caught: unknown;
-    try {
-      run();
-    } catch (error) {
-      caught = error;
-    }
-    expect(caught).toBeInstanceOf(InputError);
-    expect((caught as InputError).field).toBe(field);
-    expect((caught as InputError).message).toMatch(wording);
-  }
-
   it('names the option and what was expected', () => {
     // Common practice (core/errors.ts contract): InputError names the field at fault.
     expectInputError(() => uniformPresentValueFactor(0.03, -5), 'years', /whole number/);

@@ -3,7 +3,7 @@
 import Decimal from 'decimal.js';
 import * as formula from '@formulajs/formulajs';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../core/errors.ts';
+import { expectInputError } from '../_lib/expect-input-error.ts';
 import {
   loanMonthlyPaymentRoundedUsd,
   loanMonthlyPaymentUsd,
@@ -181,18 +181,6 @@ describe('monthly cash flow of a financed package', () => {
 });
 
 describe('bad loan input', () => {
-  function expectInputError(run: () => unknown, field: string, wording: RegExp): void {
-    let caught: unknown;
-    try {
-      run();
-    } catch (error) {
-      caught = error;
-    }
-    expect(caught).toBeInstanceOf(InputError);
-    expect((caught as InputError).field).toBe(field);
-    expect((caught as InputError).message).toMatch(wording);
-  }
-
   it('names the option and what was expected', () => {
     // Common practice (core/errors.ts contract): InputError names the field at fault.
     const terms = { principalUsd: 5000, aprNominal: 0.06, months: 60 };
