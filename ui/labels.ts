@@ -54,3 +54,10 @@ export function nameParts(name: string): { title: string; detail: string | null 
   if (at <= 0 || at + 2 >= name.length) return { title: name, detail: null };
   return { title: name.slice(0, at), detail: name.slice(at + 2) };
 }
+
+const DATE_FORMAT = new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeZone: 'UTC' });
+
+/** A stored calendar date (`YYYY-MM-DD`) as people read it: "Jan 13, 2026". */
+export function dateWords(isoDate: string | undefined): string {
+  return isoDate === undefined ? 'No date' : DATE_FORMAT.format(new Date(`${isoDate}T00:00:00Z`));
+}
