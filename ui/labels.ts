@@ -61,3 +61,26 @@ const DATE_FORMAT = new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', time
 export function dateWords(isoDate: string | undefined): string {
   return isoDate === undefined ? 'No date' : DATE_FORMAT.format(new Date(`${isoDate}T00:00:00Z`));
 }
+
+const RANKING_WORDS: Readonly<Record<string, string>> = {
+  sir: 'savings-to-investment ratio (SIR), highest first',
+  npv: 'net present value (NPV), highest first',
+  payback: 'simple payback, shortest first',
+  cce: 'cost of conserved energy, lowest first',
+};
+
+/** The criterion a plan's measures are ranked by, in words; an unknown code as stored. */
+export function rankingWords(code: string): string {
+  return RANKING_WORDS[code] ?? code;
+}
+
+const SEVERITY_WORDS: Readonly<Record<string, string>> = {
+  danger: 'Danger',
+  warning: 'Warning',
+  notice: 'Notice',
+};
+
+/** A caution's severity as a word; an unknown code as stored. */
+export function severityWords(code: string): string {
+  return SEVERITY_WORDS[code] ?? code;
+}

@@ -7,6 +7,8 @@
 export const SECTIONS = [
   { slug: 'house', name: 'House' },
   { slug: 'leak-test', name: 'Leak test' },
+  { slug: 'plan', name: 'Plan' },
+  { slug: 'safety', name: 'Safety' },
 ] as const;
 
 export type Section = (typeof SECTIONS)[number];
