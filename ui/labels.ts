@@ -84,3 +84,52 @@ const SEVERITY_WORDS: Readonly<Record<string, string>> = {
 export function severityWords(code: string): string {
   return SEVERITY_WORDS[code] ?? code;
 }
+
+const MEASURE_STATUS_WORDS: Readonly<Record<string, string>> = {
+  planned: 'Planned',
+  done: 'Done',
+  declined: 'Declined',
+};
+
+/** A measure's state in words; a measure with none stored is planned. */
+export function measureStatusWords(code: string | undefined): string {
+  return MEASURE_STATUS_WORDS[code ?? 'planned'] ?? code ?? 'Planned';
+}
+
+const MEASURE_GROUP_WORDS: Readonly<Record<string, string>> = {
+  atticBypass: 'Attic bypasses',
+  rimAndSill: 'Rim joists and sills',
+  penetration: 'Penetrations',
+  doorsAndWindows: 'Doors and windows',
+  other: 'Other work',
+};
+
+/** A group of the measure library in words; an unknown code as stored. */
+export function measureGroupWords(code: string): string {
+  return MEASURE_GROUP_WORDS[code] ?? code;
+}
+
+const LOCATION_WORDS: Readonly<Record<string, string>> = {
+  ceiling: 'Ceiling',
+  wall: 'Walls',
+  floor: 'Floor',
+  flue: 'Flue',
+};
+
+/** Where a leak is, in words; an unknown code as stored. */
+export function locationWords(code: string | undefined): string {
+  if (code === undefined) return '—';
+  return LOCATION_WORDS[code] ?? code;
+}
+
+const MEASURE_UNIT_WORDS: Readonly<Record<string, string>> = {
+  each: 'each',
+  linearFt: 'ft',
+  ft2: 'ft²',
+  job: 'job',
+};
+
+/** The unit a library type is counted in, as a short word ("ft", "each"). */
+export function measureUnitWords(code: string): string {
+  return MEASURE_UNIT_WORDS[code] ?? code;
+}

@@ -7,6 +7,7 @@
 export const SECTIONS = [
   { slug: 'house', name: 'House' },
   { slug: 'leak-test', name: 'Leak test' },
+  { slug: 'measures', name: 'Measures' },
   { slug: 'plan', name: 'Plan' },
   { slug: 'safety', name: 'Safety' },
 ] as const;
