@@ -1,5 +1,5 @@
 /**
- * Where the screens are: the Homes list, or a section of one home's workspace, kept in the
+ * Where the screens are: the Homes list, the Library, the Settings, or a section of one home's workspace, kept in the
  * address's fragment (`#/homes/12/leak-test`) so a reload returns to the same place.
  */
 
@@ -15,7 +15,11 @@ export const SECTIONS = [
 export type Section = (typeof SECTIONS)[number];
 export type SectionSlug = Section['slug'];
 
-export type Place = { screen: 'homes' } | { screen: 'home'; homeId: number; section: SectionSlug };
+export type Place =
+  | { screen: 'homes' }
+  | { screen: 'library' }
+  | { screen: 'settings' }
+  | { screen: 'home'; homeId: number; section: SectionSlug };
 
 function isSectionSlug(text: string): text is SectionSlug {
   return SECTIONS.some((section) => section.slug === text);
@@ -23,6 +27,8 @@ function isSectionSlug(text: string): text is SectionSlug {
 
 /** The place a fragment names; anything unknown is the Homes list. */
 export function placeOf(hash: string): Place {
+  if (/^#\/library\/?$/.test(hash)) return { screen: 'library' };
+  if (/^#\/settings\/?$/.test(hash)) return { screen: 'settings' };
   const match = /^#\/homes\/(\d{1,9})(?:\/([a-z-]+))?\/?$/.exec(hash);
   if (match === null) return { screen: 'homes' };
   const homeId = Number(match[1]);
@@ -33,7 +39,7 @@ export function placeOf(hash: string): Place {
 
 /** The fragment of a place, for links. */
 export function hrefOf(place: Place): string {
-  return place.screen === 'homes' ? '#/homes' : `#/homes/${place.homeId}/${place.section}`;
+  return place.screen === 'home' ? `#/homes/${place.homeId}/${place.section}` : `#/${place.screen}`;
 }
 
 /** The section's name as the navigation shows it. */
