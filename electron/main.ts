@@ -203,9 +203,65 @@ function exposeHomeFileSaving(store: Store): void {
   );
 }
 
-/** Prints the page (the proposal view) to a PDF the user places. */
+/** The page's answer to "show the proposal": shown, or why not (no home open, no plan). */
+interface ProposalShown {
+  shown: boolean;
+  why: string;
+}
+
+/** Where the page's next answer goes; one print is asked for at a time. */
+let awaitingProposal: ((answer: ProposalShown) => void) | null = null;
+
+/** How long the page may take to open a home's proposal and draw it. */
+const PROPOSAL_WAIT_MS = 15_000;
+
+function proposalAnswerOf(request: unknown): ProposalShown {
+  const answer = request as { shown?: unknown; why?: unknown } | null;
+  return {
+    shown: answer?.shown === true,
+    why: typeof answer?.why === 'string' ? answer.why.slice(0, 500) : '',
+  };
+}
+
+/** Receives the page's answer once the proposal is drawn (or cannot be). */
+function exposeProposalAnswers(): void {
+  ipcMain.handle(
+    'sealwork:desktop.proposalShown',
+    guarded((_event, request) => {
+      awaitingProposal?.(proposalAnswerOf(request));
+      awaitingProposal = null;
+      return { ok: true, value: null };
+    }),
+  );
+}
+
+/** Asks the page to show the open home's proposal and waits until it says it is drawn. */
+function showProposal(window: BrowserWindow): Promise<ProposalShown> {
+  return new Promise((resolve) => {
+    const timer = setTimeout(() => {
+      awaitingProposal = null;
+      resolve({ shown: false, why: 'The proposal did not appear in time. Open it and try again.' });
+    }, PROPOSAL_WAIT_MS);
+    awaitingProposal = (answer) => {
+      clearTimeout(timer);
+      resolve(answer);
+    };
+    window.webContents.send('sealwork:menu', 'showProposal');
+  });
+}
+
+/** Prints the open home's proposal to a PDF the user places, with the page's print styles. */
 async function printProposal(window: BrowserWindow): Promise<void> {
-  window.webContents.send('sealwork:menu', 'showProposal');
+  const shown = await showProposal(window);
+  if (!shown.shown) {
+    await dialog.showMessageBox(window, {
+      type: 'info',
+      title: 'No proposal to print',
+      message: 'There is no proposal to print yet.',
+      detail: shown.why,
+    });
+    return;
+  }
   const choice = await dialog.showSaveDialog(window, {
     title: 'Save proposal as PDF',
     defaultPath: 'proposal.pdf',
@@ -213,7 +269,11 @@ async function printProposal(window: BrowserWindow): Promise<void> {
   });
   if (choice.canceled || !choice.filePath) return;
   try {
-    const pdf = await window.webContents.printToPDF({ printBackground: true, pageSize: 'Letter' });
+    const pdf = await window.webContents.printToPDF({
+      printBackground: true,
+      pageSize: 'Letter',
+      preferCSSPageSize: true,
+    });
     writeFileSync(choice.filePath, pdf);
   } catch (error) {
     dialog.showErrorBox('The proposal was not saved', (error as Error).message);
@@ -244,6 +304,20 @@ function createWindow(store: Store): BrowserWindow {
   window.once('ready-to-show', () => window.show());
   window.on('close', () => {
     saveWindowBounds(statePath, { ...window.getNormalBounds(), maximized: window.isMaximized() });
+  });
+  // The page holds back closing while typed figures are not saved (its beforeunload); the
+  // window asks the person instead of closing silently or losing them.
+  window.webContents.on('will-prevent-unload', (event) => {
+    const choice = dialog.showMessageBoxSync(window, {
+      type: 'question',
+      buttons: ['Stay and save them', 'Close without them'],
+      defaultId: 0,
+      cancelId: 0,
+      title: 'Figures not saved',
+      message: 'Some figures you typed are not saved yet.',
+      detail: 'They are still in their boxes, most often because Sealwork could not accept them as typed.',
+    });
+    if (choice === 1) event.preventDefault(); // preventing the prevention lets the page close
   });
   window.webContents.on('will-navigate', (event, url) => {
     if (!mayNavigate(url)) event.preventDefault();
@@ -318,6 +392,7 @@ function start(): void {
     serveApp();
     exposeChannels(store);
     exposeHomeFileSaving(store);
+    exposeProposalAnswers();
     let window = createWindow(store);
     app.on('second-instance', () => {
       if (window.isMinimized()) window.restore();

@@ -24,7 +24,12 @@ function saveHomeFile(request: { id: number }): Promise<unknown> {
   return ipcRenderer.invoke('sealwork:desktop.saveHomeFile', request);
 }
 
+/** Tells the main process the proposal it asked for is drawn (or why it cannot be). */
+function proposalShown(answer: { shown: boolean; why: string }): Promise<unknown> {
+  return ipcRenderer.invoke('sealwork:desktop.proposalShown', answer);
+}
+
 contextBridge.exposeInMainWorld(
   'sealwork',
-  Object.freeze({ ...bridge, onMenuCommand, saveHomeFile }),
+  Object.freeze({ ...bridge, onMenuCommand, saveHomeFile, proposalShown }),
 );

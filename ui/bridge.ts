@@ -20,9 +20,16 @@ type DesktopBridge = {
   ) => Promise<Reply<ChannelResponse<Name>>>;
 };
 
+/** What the desktop preload adds beside the channels: the menu and the native dialogs. */
+interface DesktopExtras {
+  onMenuCommand(listener: (command: string) => void): void;
+  saveHomeFile(request: { id: number }): Promise<unknown>;
+  proposalShown(answer: { shown: boolean; why: string }): Promise<unknown>;
+}
+
 declare global {
   interface Window {
-    sealwork?: DesktopBridge;
+    sealwork?: DesktopBridge & DesktopExtras;
   }
 }
 
@@ -148,4 +155,27 @@ export function call<Name extends ChannelName>(
   request: ChannelRequest<Name>,
 ): Promise<Reply<ChannelResponse<Name>>> {
   return currentTransport()(name, request);
+}
+
+/**
+ * Listens to the desktop menu's commands (new home, print the proposal, shortcuts…).
+ *
+ * @returns false in a plain browser, where there is no menu bar of Sealwork's own
+ */
+export function onMenuCommand(listener: (command: string) => void): boolean {
+  if (!window.sealwork) return false;
+  window.sealwork.onMenuCommand(listener);
+  return true;
+}
+
+/** Tells the desktop app whether the proposal it asked to print is drawn, or why not. */
+export function answerProposalRequest(answer: { shown: boolean; why: string }): void {
+  void window.sealwork?.proposalShown(answer);
+}
+
+/** Saves a home as a file with the desktop's save dialog; false in a plain browser. */
+export function saveHomeFileWithDialog(homeId: number): boolean {
+  if (!window.sealwork) return false;
+  void window.sealwork.saveHomeFile({ id: homeId });
+  return true;
 }

@@ -1,9 +1,8 @@
 /**
- * The house geometry fields the House section edits: their labels, units and choices. The
- * store's own rules (homes.update) decide what is valid; the screen only turns text into
- * numbers and shows the store's answer beside the field.
+ * The house geometry fields: their labels, units and choices (the House section edits them
+ * through data-fields.ts). The store's own rules (homes.update) decide what is valid.
  */
-import type { Foundation, House } from '../core/schema.ts';
+import type { Foundation } from '../core/schema.ts';
 import type { Quantity } from './quantities.ts';
 
 export type HouseFieldKey =
@@ -81,21 +80,6 @@ export const HOUSE_FIELDS: readonly HouseFieldSpec[] = [
   },
   { kind: 'number', key: 'yearBuilt', label: 'Year built' },
 ];
-
-/** The label of a field, for the status line. */
-export function fieldLabel(key: HouseFieldKey): string {
-  return HOUSE_FIELDS.find((field) => field.key === key)?.label ?? key;
-}
-
-/** The store's path of a house field in a homes.update request. */
-export function requestPathOf(key: HouseFieldKey): string {
-  return `home.data.house.${key}`;
-}
-
-/** The house with one field replaced by a value the store will judge. */
-export function withField(house: House, key: HouseFieldKey, value: number | string): House {
-  return { ...house, [key]: value } as House;
-}
 
 /** Foundation words for the read-only views. */
 export function foundationWords(foundation: Foundation): string {

@@ -9,25 +9,20 @@
  * the keyboard and refusal checks (from memory); the W3C Content Security Policy Level 3
  * `securitypolicyviolation` event for CSP breaches.
  */
-import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { MeasureType } from '../../core/measure-library/types.ts';
 import { getSettings } from '../../db/repositories/settings.ts';
 import { callChannel } from '../../electron/channels.ts';
-import { startBrowserHost, type BrowserHost } from '../../electron/serve.ts';
+import type { BrowserHost } from '../../electron/serve.ts';
 import { axeViolations } from './_lib/axe.ts';
-import { launchChromium } from './_lib/browser.ts';
 import { focusRingShown, tabTo } from './_lib/keyboard.ts';
 import { openWatchedPage, type WatchedPage } from './_lib/page-watch.ts';
-import { openTempProject, type TempProject } from './_lib/temp-project.ts';
-import { ensureUiBuilt, REPO_ROOT } from './_lib/ui-build.ts';
+import { SCREENSHOTS, SETUP_TIMEOUT_MS, startRig, TEST_TIMEOUT_MS, type Rig } from './_lib/rig.ts';
+import type { TempProject } from './_lib/temp-project.ts';
 
-const SCREENSHOTS = join(REPO_ROOT, 'test-output', 'screenshots');
-const SETUP_TIMEOUT_MS = 180_000;
-const TEST_TIMEOUT_MS = 60_000;
-
+let rig: Rig;
 let project: TempProject;
 let host: BrowserHost;
 let browser: Browser;
@@ -66,17 +61,12 @@ async function typeAndLeave(page: Page, selector: string, text: string): Promise
 }
 
 beforeAll(async () => {
-  const uiRoot = ensureUiBuilt();
-  project = openTempProject('sealwork-e2e-library-settings-');
-  host = await startBrowserHost({ context: { store: project.store }, uiRoot });
-  browser = await launchChromium();
-  mkdirSync(SCREENSHOTS, { recursive: true });
+  rig = await startRig('sealwork-e2e-library-settings-');
+  ({ project, host, browser } = rig);
 }, SETUP_TIMEOUT_MS);
 
 afterAll(async () => {
-  await browser?.close();
-  await host?.close();
-  project?.close();
+  await rig?.close();
 }, SETUP_TIMEOUT_MS);
 
 describe('the Settings screen in chromium', { timeout: TEST_TIMEOUT_MS }, () => {

@@ -8,7 +8,6 @@
  * Focus Visible for the severity marks and the keyboard path (from memory); the W3C Content
  * Security Policy Level 3 `securitypolicyviolation` event for CSP breaches.
  */
-import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -16,18 +15,14 @@ import { formatUsd } from '../../core/format.ts';
 import type { EvaluationReport } from '../../core/report.ts';
 import { listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
 import { callChannel } from '../../electron/channels.ts';
-import { startBrowserHost, type BrowserHost } from '../../electron/serve.ts';
+import type { BrowserHost } from '../../electron/serve.ts';
 import { axeViolations } from './_lib/axe.ts';
-import { launchChromium } from './_lib/browser.ts';
 import { focusRingShown, tabTo } from './_lib/keyboard.ts';
 import { openWatchedPage, type WatchedPage } from './_lib/page-watch.ts';
-import { openTempProject, type TempProject } from './_lib/temp-project.ts';
-import { ensureUiBuilt, REPO_ROOT } from './_lib/ui-build.ts';
+import { SCREENSHOTS, SETUP_TIMEOUT_MS, startRig, TEST_TIMEOUT_MS, type Rig } from './_lib/rig.ts';
+import type { TempProject } from './_lib/temp-project.ts';
 
-const SCREENSHOTS = join(REPO_ROOT, 'test-output', 'screenshots');
-const SETUP_TIMEOUT_MS = 180_000;
-const TEST_TIMEOUT_MS = 60_000;
-
+let rig: Rig;
 let project: TempProject;
 let host: BrowserHost;
 let browser: Browser;
@@ -84,8 +79,8 @@ async function openSectionByKeyboard(name: 'Plan' | 'Safety'): Promise<WatchedPa
 }
 
 beforeAll(async () => {
-  const uiRoot = ensureUiBuilt();
-  project = openTempProject('sealwork-e2e-plan-safety-');
+  rig = await startRig('sealwork-e2e-plan-safety-');
+  ({ project, host, browser } = rig);
   const demoHomes = project.store.read((read) => listHomes(read)).filter((row) => row.isDemo);
   // A home whose plan shows every kind of row: a package of two or more, a measure below
   // SIR 1, and cautions to list.
@@ -100,15 +95,10 @@ beforeAll(async () => {
   if (found === undefined) throw new Error('no demo home of the kind these checks need');
   home = found;
   report = evaluated(found.id);
-  host = await startBrowserHost({ context: { store: project.store }, uiRoot });
-  browser = await launchChromium();
-  mkdirSync(SCREENSHOTS, { recursive: true });
 }, SETUP_TIMEOUT_MS);
 
 afterAll(async () => {
-  await browser?.close();
-  await host?.close();
-  project?.close();
+  await rig?.close();
 }, SETUP_TIMEOUT_MS);
 
 describe('the Plan section in chromium', { timeout: TEST_TIMEOUT_MS }, () => {

@@ -8,23 +8,19 @@
  * 2.4.1 Bypass Blocks and 2.4.7 Focus Visible for the keyboard checks (from memory); the
  * W3C Content Security Policy Level 3 `securitypolicyviolation` event for CSP breaches.
  */
-import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
-import { startBrowserHost, type BrowserHost } from '../../electron/serve.ts';
+import type { BrowserHost } from '../../electron/serve.ts';
 import { axeViolations } from './_lib/axe.ts';
-import { launchChromium } from './_lib/browser.ts';
 import { openWatchedPage, type WatchedPage } from './_lib/page-watch.ts';
-import { openTempProject, type TempProject } from './_lib/temp-project.ts';
-import { ensureUiBuilt, REPO_ROOT } from './_lib/ui-build.ts';
+import { SCREENSHOTS, SETUP_TIMEOUT_MS, startRig, TEST_TIMEOUT_MS, type Rig } from './_lib/rig.ts';
+import type { TempProject } from './_lib/temp-project.ts';
 
-const SCREENSHOTS = join(REPO_ROOT, 'test-output', 'screenshots');
 /** Chromium takes a few seconds to start on a small machine; building adds more. */
-const SETUP_TIMEOUT_MS = 180_000;
-const TEST_TIMEOUT_MS = 60_000;
 
+let rig: Rig;
 let project: TempProject;
 let host: BrowserHost;
 let browser: Browser;
@@ -56,21 +52,16 @@ function expectHealthy(watched: WatchedPage): void {
 }
 
 beforeAll(async () => {
-  const uiRoot = ensureUiBuilt();
-  project = openTempProject('sealwork-e2e-');
+  rig = await startRig('sealwork-e2e-');
+  ({ project, host, browser } = rig);
   storedHomes = project.store.read((read) => listHomes(read));
   const demo = storedHomes.find((home) => home.isDemo);
   if (demo === undefined) throw new Error('the demo project holds no demo home');
   knownHome = demo;
-  host = await startBrowserHost({ context: { store: project.store }, uiRoot });
-  browser = await launchChromium();
-  mkdirSync(SCREENSHOTS, { recursive: true });
 }, SETUP_TIMEOUT_MS);
 
 afterAll(async () => {
-  await browser?.close();
-  await host?.close();
-  project?.close();
+  await rig?.close();
 }, SETUP_TIMEOUT_MS);
 
 describe('the Homes screen in chromium', { timeout: TEST_TIMEOUT_MS }, () => {

@@ -8,7 +8,6 @@
  * Error Identification for the keyboard and refusal checks (from memory); the W3C Content
  * Security Policy Level 3 `securitypolicyviolation` event for CSP breaches.
  */
-import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -18,18 +17,14 @@ import { planTestOf } from '../../db/home-file.ts';
 import { getHome, listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
 import { listLeakageTests, type LeakageTestRecord } from '../../db/repositories/leakage-tests.ts';
 import { getSettings } from '../../db/repositories/settings.ts';
-import { startBrowserHost, type BrowserHost } from '../../electron/serve.ts';
+import type { BrowserHost } from '../../electron/serve.ts';
 import { axeViolations } from './_lib/axe.ts';
-import { launchChromium } from './_lib/browser.ts';
 import { focusRingShown, tabTo } from './_lib/keyboard.ts';
 import { openWatchedPage, type WatchedPage } from './_lib/page-watch.ts';
-import { openTempProject, type TempProject } from './_lib/temp-project.ts';
-import { ensureUiBuilt, REPO_ROOT } from './_lib/ui-build.ts';
+import { SCREENSHOTS, SETUP_TIMEOUT_MS, startRig, TEST_TIMEOUT_MS, type Rig } from './_lib/rig.ts';
+import type { TempProject } from './_lib/temp-project.ts';
 
-const SCREENSHOTS = join(REPO_ROOT, 'test-output', 'screenshots');
-const SETUP_TIMEOUT_MS = 180_000;
-const TEST_TIMEOUT_MS = 60_000;
-
+let rig: Rig;
 let project: TempProject;
 let host: BrowserHost;
 let browser: Browser;
@@ -126,21 +121,16 @@ async function openByKeyboard(home: HomeSummary): Promise<WatchedPage> {
 }
 
 beforeAll(async () => {
-  const uiRoot = ensureUiBuilt();
-  project = openTempProject('sealwork-e2e-workspace-');
+  rig = await startRig('sealwork-e2e-workspace-');
+  ({ project, host, browser } = rig);
   allHomes = project.store.read((read) => listHomes(read)).filter((home) => home.isDemo);
   const demo = allHomes[0];
   if (demo === undefined) throw new Error('the demo project holds no demo home');
   demoHome = demo;
-  host = await startBrowserHost({ context: { store: project.store }, uiRoot });
-  browser = await launchChromium();
-  mkdirSync(SCREENSHOTS, { recursive: true });
 }, SETUP_TIMEOUT_MS);
 
 afterAll(async () => {
-  await browser?.close();
-  await host?.close();
-  project?.close();
+  await rig?.close();
 }, SETUP_TIMEOUT_MS);
 
 describe('the House section in chromium', { timeout: TEST_TIMEOUT_MS }, () => {
@@ -190,7 +180,9 @@ describe('the House section in chromium', { timeout: TEST_TIMEOUT_MS }, () => {
     await expect.poll(() => page.getByText('Saved: bedrooms.').count()).toBe(1);
     expect(storedHouse(demoHome.id)).toEqual({ ...before, bedrooms: wanted });
 
-    await tabTo(page, bedrooms, 20);
+    // Back one box, to bedrooms again, by keyboard.
+    await page.keyboard.press('Shift+Tab');
+    expect(await bedrooms.evaluate((element) => element === document.activeElement)).toBe(true);
     await bedrooms.fill('-1');
     await page.keyboard.press('Enter');
     const error = page.locator('#house-bedrooms-error');

@@ -10,6 +10,7 @@ export const SECTIONS = [
   { slug: 'measures', name: 'Measures' },
   { slug: 'plan', name: 'Plan' },
   { slug: 'safety', name: 'Safety' },
+  { slug: 'proposal', name: 'Proposal' },
 ] as const;
 
 export type Section = (typeof SECTIONS)[number];

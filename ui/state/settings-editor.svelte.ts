@@ -6,7 +6,7 @@
  */
 import type { ChannelResponse } from '../../electron/channels.ts';
 import { call } from '../bridge.ts';
-import type { SaveStatus } from './house-editor.svelte.ts';
+import type { SaveStatus } from './save-status.ts';
 
 export type Settings = ChannelResponse<'settings.get'>;
 export type NumberSettingKey =

@@ -1,12 +1,12 @@
 /**
  * One open home: what the store holds for it (homes.get), its evaluation (plan.evaluate), the
- * units the project shows, and the changes to its house saved through homes.update. Replies
- * for a home that is no longer the open one are dropped.
+ * units the project shows, the changes to it saved through homes.update, and the session's
+ * edits that can be undone. Replies for a home that is no longer the open one are dropped.
  */
+import { SvelteMap } from 'svelte/reactivity';
 import { call } from '../bridge.ts';
 import type { ChannelRequest, ChannelResponse } from '../../electron/channels.ts';
 import type { EvaluationReport } from '../../core/report.ts';
-import type { House } from '../../core/schema.ts';
 import type { UnitSystem } from '../quantities.ts';
 import type { LoadStatus } from './homes.svelte.ts';
 
@@ -14,6 +14,25 @@ export type HomeRecord = ChannelResponse<'homes.get'>;
 export type StoredHome = HomeRecord['home'];
 export type TestRecord = HomeRecord['tests'][number];
 type HomeInput = ChannelRequest<'homes.update'>['home'];
+
+/** What a save of the home may replace. */
+export type HomeChange = Partial<Pick<HomeInput, 'data' | 'climateId' | 'priceSetId'>>;
+
+/** A saved edit that can be taken back: `revert` asks the store to put back what was before. */
+export interface UndoableEdit {
+  homeId: number;
+  /** What was changed, in words: "Floor area", "Added test-out". */
+  label: string;
+  revert(): Promise<{ ok: true } | { ok: false; error: { message: string } }>;
+}
+
+/** An editor holding typed text that may not be saved yet. */
+export interface HoldsDrafts {
+  readonly hasUnsaved: boolean;
+}
+
+/** How many edits of a session can be undone. */
+const UNDO_LIMIT = 50;
 
 /** A field's problem from a refusal, keyed by the field's path (`home.data.house.bedrooms`). */
 export interface FieldProblem {
@@ -48,6 +67,33 @@ export class WorkspaceState {
   reportFailure = $state<string | null>(null);
   units = $state<UnitSystem>('IP');
   unitsFailure = $state<string | null>(null);
+  /** The session's saved edits, oldest first, across the homes opened. */
+  #edits = $state.raw<UndoableEdit[]>([]);
+  undoing = $state(false);
+  undoFailure = $state<string | null>(null);
+  /** The label of the edit last undone, for the status line. */
+  undone = $state<string | null>(null);
+  /** The editors of each home opened, kept across section changes so nothing typed is lost. */
+  #editors = new SvelteMap<string, HoldsDrafts>();
+
+  /** Whether any home's editor holds typed text not saved yet (the page warns before closing). */
+  hasUnsaved = $derived([...this.#editors.values()].some((editor) => editor.hasUnsaved));
+
+  /**
+   * The open home's editor of one kind, made once and kept while the page is open: leaving a
+   * section and coming back finds what was typed there, saved or not.
+   *
+   * @param kind - which editor ("house", "test entry")
+   * @param make - makes the editor the first time
+   */
+  editor<Editor extends HoldsDrafts>(kind: string, make: () => Editor): Editor {
+    const key = `${this.homeId ?? 'none'}/${kind}`;
+    const kept = this.#editors.get(key) as Editor | undefined;
+    if (kept !== undefined) return kept;
+    const made = make();
+    this.#editors.set(key, made);
+    return made;
+  }
 
   /** Opens a home (again, when it is already open, only if it failed to load). */
   async open(homeId: number): Promise<void> {
@@ -114,23 +160,74 @@ export class WorkspaceState {
     }
   }
 
+  /** Reads the open home again and asks for its plan again (after a change saved elsewhere). */
+  async reloadHome(): Promise<void> {
+    const homeId = this.homeId;
+    if (homeId === null) return;
+    if (await this.#loadHome(homeId)) await this.#loadReport(homeId);
+  }
+
   /**
-   * Saves the open home with `house` in place of its house; on success the home is read
-   * again and its plan evaluated again, on a refusal nothing changes here.
+   * Saves a change to the open home (its description, or which stored climate or price set
+   * it uses); on success the home is read again, its plan evaluated again, and the change
+   * can be undone. On a refusal nothing changes here.
+   *
+   * @param change - the parts to replace; the rest of the home is sent as it is stored
+   * @param label - what was changed, in words, for the undo offer ("Floor area")
    */
-  async saveHouse(house: House): Promise<SaveOutcome> {
+  async saveHome(change: HomeChange, label: string): Promise<SaveOutcome> {
     const record = this.record;
     if (record === null) return { ok: false, message: 'The home is not open.', problems: [] };
     const homeId = record.home.id;
-    const input = homeInputOf(record.home, { ...record.home.data, house });
+    const before = homeInputOf(record.home, record.home.data);
+    const input: HomeInput = { ...before, ...change };
     const reply = await call('homes.update', { id: homeId, home: input });
     if (!reply.ok) {
       return { ok: false, message: reply.error.message, problems: reply.error.problems ?? [] };
     }
+    this.remember({
+      homeId,
+      label,
+      revert: () => call('homes.update', { id: homeId, home: before }),
+    });
     if (this.homeId === homeId) {
       await this.#loadHome(homeId);
       void this.#loadReport(homeId);
     }
     return { ok: true };
+  }
+
+  /** Keeps an edit that was saved so it can be undone; the oldest go beyond `UNDO_LIMIT`. */
+  remember(edit: UndoableEdit): void {
+    this.#edits = [...this.#edits, edit].slice(-UNDO_LIMIT);
+    this.undoFailure = null;
+  }
+
+  /** The edit Undo would take back in the open home, or null. */
+  lastEdit = $derived.by((): UndoableEdit | null => {
+    const homeId = this.homeId;
+    const mine = this.#edits.filter((edit) => edit.homeId === homeId);
+    return mine[mine.length - 1] ?? null;
+  });
+
+  /**
+   * Takes back the open home's last edit: the store is asked to put back what was there
+   * before it; the home is then read and evaluated again. A refusal (say, the thing edited
+   * was deleted since) is said in `undoFailure` and the edit stays offered.
+   */
+  async undoLast(): Promise<void> {
+    const edit = this.lastEdit;
+    if (edit === null || this.undoing) return;
+    this.undoing = true;
+    const reply = await edit.revert();
+    this.undoing = false;
+    if (!reply.ok) {
+      this.undoFailure = `“${edit.label}” could not be undone. ${reply.error.message}`;
+      return;
+    }
+    this.#edits = this.#edits.filter((kept) => kept !== edit);
+    this.undoFailure = null;
+    this.undone = edit.label;
+    if (this.homeId === edit.homeId) await this.reloadHome();
   }
 }

@@ -1,0 +1,60 @@
+/**
+ * What every chart of the screens shares: chart.js with the parts they use registered once,
+ * colours read from the page's own palette (ui/styles), and axes drawn alike. Each chart
+ * still says in words what it shows (its aria-label and the table beside it).
+ */
+import {
+  CategoryScale,
+  Chart,
+  Legend,
+  LinearScale,
+  LineController,
+  LineElement,
+  LogarithmicScale,
+  PointElement,
+  ScatterController,
+  type ChartOptions,
+} from 'chart.js';
+
+/** The options of one axis, as a chart's `options.scales` takes them. */
+export type AxisOptions = NonNullable<NonNullable<ChartOptions<'line'>['scales']>[string]>;
+
+Chart.register(
+  ScatterController,
+  LineController,
+  PointElement,
+  LineElement,
+  LinearScale,
+  LogarithmicScale,
+  CategoryScale,
+  Legend,
+);
+
+export { Chart };
+
+/** A colour of the page's palette (`--spruce`), so charts keep Sealwork's colours. */
+export function paletteColour(name: string): string {
+  return getComputedStyle(document.documentElement).getPropertyValue(name).trim();
+}
+
+/**
+ * A linear axis with a title and ticks in the page's ink.
+ *
+ * @param title - the axis title, with its unit ("Cumulative cost, USD")
+ * @param tick - how a tick's value is written
+ * @param min - the axis's lowest value (0 for amounts)
+ */
+export function linearAxis(
+  title: string,
+  tick: (value: number) => string,
+  min?: number,
+): AxisOptions {
+  const ink = paletteColour('--ink');
+  return {
+    type: 'linear',
+    ...(min === undefined ? {} : { min }),
+    title: { display: true, text: title, color: ink },
+    ticks: { color: ink, callback: (value) => tick(Number(value)) },
+    grid: { color: paletteColour('--line-soft') },
+  };
+}
