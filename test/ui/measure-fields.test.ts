@@ -1,5 +1,5 @@
 /**
- * The measure form's rules (ui/measure-fields.ts): what typed text becomes in the store, and
+ * The measure form's rules (ui/measure-fields.ts, ui/measure-form.ts): what typed text becomes in the store, and
  * how the store's refusals read in the units on the screen.
  *
  * Sources: the conversion factors follow from the exact foot and inch of NIST SP 811 (2008),
@@ -15,18 +15,20 @@ import { estimateReductionCfm50 } from '../../core/measures.ts';
 import { measureSchema, type Measure } from '../../core/schema.ts';
 import {
   boxText,
-  byUnitsEstimateCfm50,
-  draftOfMeasure,
   fieldOfPath,
-  measureOfDraft,
   messageInShownUnits,
   refusalsByField,
-  sameMeasure,
   storedOfTyped,
-  textOfField,
-  type DraftValues,
   type FieldContext,
 } from '../../ui/measure-fields.ts';
+import {
+  byUnitsEstimateCfm50,
+  draftOfMeasure,
+  measureOfDraft,
+  sameMeasure,
+  textOfField,
+  type DraftValues,
+} from '../../ui/measure-form.ts';
 import { perShownWork, workAmountWords } from '../../ui/quantities.ts';
 
 /** NIST SP 811 (2008), appendix B: exact definitions of the foot and the inch. */
