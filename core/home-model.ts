@@ -33,6 +33,9 @@ export const DEFAULT_LEAK_SHARES: LeakShares = { ceiling: 0.25, wall: 0.5, floor
 /** Fan power when none is given, W/cfm. From memory: efficient bath fans move about 3 cfm/W. */
 export const DEFAULT_FAN_WATTS_PER_CFM = 0.33;
 
+/** Watts in a kilowatt, to turn W·h into kWh. Exact by definition. */
+const WATTS_PER_KILOWATT = 1000;
+
 /** The 62.2 check for one leakage level. */
 export interface VentilationNeed {
   requiredCfm: number;
@@ -59,12 +62,36 @@ export interface HomeModel {
   /** The 62.2 check at a leakage level. */
   ventilation(cfm50: number): VentilationNeed;
   /**
+   * The outdoor air of a leakage state with the ventilation 62.2 asks for at that level:
+   * natural infiltration by the chosen method, the fan flow (the larger of the fans the house
+   * runs and the 62.2 fan need), the two combined, and the power of the fan flow beyond the
+   * existing fans. `energyOf` values exactly these flows.
+   */
+  ventilatedAirflow(leakage: LeakageByLocation): VentilatedAirflow;
+  /**
    * The year's energy of a leakage state with the ventilation 62.2 asks for at that level:
-   * infiltration combined with the fan flow (the larger of the fans the house runs and the
-   * 62.2 fan need), plus the power of the fan flow beyond the existing fans. Valuing every
-   * step this way charges each measure with the ventilation its tightening calls for.
+   * the combined flows and added fan power of `ventilatedAirflow`. Valuing every step this way
+   * charges each measure with the ventilation its tightening calls for.
    */
   energyOf(leakage: LeakageByLocation): AnnualEnergy;
+}
+
+/** The outdoor air of one leakage state as the model values it. */
+export interface VentilatedAirflow {
+  /** Natural infiltration by the home's infiltration method, by season, cfm. */
+  infiltration: SeasonalAirflowCfm;
+  /** The 62.2 check at the state's CFM50. */
+  need: VentilationNeed;
+  /** Continuous fan flow: max(existing fans, 62.2 fan need), cfm. */
+  fanCfm: number;
+  /** Whether the fan flow is balanced (added whole) or not (added in quadrature). */
+  balanced: boolean;
+  /** Infiltration and fan flow combined, by season (cooling 0 when the home does not cool), cfm. */
+  combined: SeasonalAirflowCfm;
+  /** Fan power per flow used for the added fan, W/cfm. */
+  fanWattsPerCfm: number;
+  /** Electricity of the fan flow beyond the existing fans over a year, kWh. */
+  addedFanKwh: number;
 }
 
 /** Total CFM50 of a leakage state. */
@@ -173,6 +200,25 @@ export function buildHomeModel(
           unbalancedFanCfm: balanced ? 0 : fanCfm,
         });
 
+  const ventilatedAirflow = (leakage: LeakageByLocation): VentilatedAirflow => {
+    const infiltration = airflowOf(leakage);
+    const need = ventilation(totalCfm50(leakage));
+    const fanCfm = Math.max(existingFanCfm, need.fanNeedCfm);
+    return {
+      infiltration,
+      need,
+      fanCfm,
+      balanced,
+      combined: {
+        heatingCfm: withFan(infiltration.heatingCfm, fanCfm),
+        coolingCfm: hasCooling ? withFan(infiltration.coolingCfm, fanCfm) : 0,
+      },
+      fanWattsPerCfm,
+      addedFanKwh:
+        ((fanCfm - existingFanCfm) * fanWattsPerCfm * HOURS_PER_YEAR) / WATTS_PER_KILOWATT,
+    };
+  };
+
   return {
     home,
     exponentN,
@@ -186,18 +232,10 @@ export function buildHomeModel(
     energy: (airflow, ventilationFanKwh = 0) =>
       annualEnergyOfAirflow(energyContext, airflow, ventilationFanKwh),
     ventilation,
+    ventilatedAirflow,
     energyOf(leakage) {
-      const infiltration = airflowOf(leakage);
-      const fanCfm = Math.max(existingFanCfm, ventilation(totalCfm50(leakage)).fanNeedCfm);
-      const addedFanKwh = ((fanCfm - existingFanCfm) * fanWattsPerCfm * HOURS_PER_YEAR) / 1000;
-      return annualEnergyOfAirflow(
-        energyContext,
-        {
-          heatingCfm: withFan(infiltration.heatingCfm, fanCfm),
-          coolingCfm: hasCooling ? withFan(infiltration.coolingCfm, fanCfm) : 0,
-        },
-        addedFanKwh,
-      );
+      const flows = ventilatedAirflow(leakage);
+      return annualEnergyOfAirflow(energyContext, flows.combined, flows.addedFanKwh);
     },
   };
 }

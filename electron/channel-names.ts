@@ -19,6 +19,7 @@ export const CHANNEL_NAMES = [
   'measures.update',
   'measures.delete',
   'plan.evaluate',
+  'plan.explain',
   'plans.save',
   'plans.list',
   'plans.get',

@@ -1,7 +1,8 @@
 /** The channels of a home's plan (evaluated and saved) and of the project's measure library. */
 import { z } from 'zod';
-import { evaluateHomeReport } from '../../core/evaluate.ts';
+import { evaluateHome, evaluateHomeReport } from '../../core/evaluate.ts';
 import { MEASURE_LIBRARY, type MeasureType } from '../../core/measure-library.ts';
+import { explainMeasure, TRACE_QUANTITIES } from '../../core/plan/trace.ts';
 import type { EvaluationReport } from '../../core/report.ts';
 import { ENGINE_VERSION } from '../../core/version.ts';
 import { exportHomeFile } from '../../db/home-file.ts';
@@ -30,12 +31,52 @@ function evaluateStored(context: ChannelContext, homeId: number) {
   );
 }
 
-/** The `plan.evaluate`, `plans.*` and `library.*` channels. */
+/** A figure of a trace: a finite number or none, its unit, and the quantity it converts as. */
+const traceFigure = {
+  value: z.number().nullable(),
+  unit: z.string(),
+  quantity: z.enum(TRACE_QUANTITIES).optional(),
+};
+
+/** The working behind one measure's figures (core/plan/trace.ts `MeasureTrace`). */
+const measureTraceSchema = z.strictObject({
+  measureId: z.string(),
+  measureName: z.string(),
+  rank: z.int().positive(),
+  included: z.boolean(),
+  appliedAfter: z.array(z.string()),
+  basis: z.string(),
+  lines: z.array(
+    z.strictObject({
+      key: z.string(),
+      label: z.string(),
+      formula: z.string(),
+      inputs: z.array(
+        z.strictObject({ label: z.string(), ...traceFigure, source: z.string().optional() }),
+      ),
+      result: z.strictObject(traceFigure),
+      note: z.string().optional(),
+    }),
+  ),
+});
+
+/** The `plan.evaluate`, `plan.explain`, `plans.*` and `library.*` channels. */
 export const planAndLibraryChannels = {
   'plan.evaluate': channel({
     request: z.strictObject({ homeId: id }),
     response: recordOf<EvaluationReport>(),
     handle: (context, request) => evaluateStored(context, request.homeId),
+  }),
+  'plan.explain': channel({
+    request: z.strictObject({ homeId: id, measureId: z.string().min(1).max(64) }),
+    response: measureTraceSchema,
+    handle: ({ store }, request) =>
+      store.read((read) =>
+        explainMeasure(
+          evaluateHome(exportHomeFile(read, request.homeId), { library: effectiveLibrary(read) }),
+          request.measureId,
+        ),
+      ),
   }),
   'plans.save': channel({
     request: z.strictObject({ homeId: id, name: z.string().trim().min(1).max(200) }),

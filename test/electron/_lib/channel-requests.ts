@@ -171,8 +171,8 @@ export function validRequests(ids: KnownIds): ValidRequests {
     'measures.update': { id: ids.measureId, measure: unitMeasure() },
     'measures.delete': { id: ids.measureId },
     'plan.evaluate': { homeId: ids.homeId },
-    // The measure addKnownRows (channel-project.ts) gives the known home.
-    'plan.explain': { homeId: ids.homeId, measureId: 'known-m1' },
+    // The measure the measures.add request adds (the corpus runs it before this one).
+    'plan.explain': { homeId: ids.homeId, measureId: directMeasure().id },
     'plans.save': { homeId: ids.homeId, name: 'Plan for the channel tests' },
     'plans.list': { homeId: ids.homeId },
     'plans.get': { id: ids.planId },
