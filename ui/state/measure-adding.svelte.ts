@@ -191,6 +191,12 @@ export class NewMeasure {
       };
       return false;
     }
+    const addedId = reply.value.id;
+    this.#host.workspace.remember({
+      homeId,
+      label: `Added ${id}`,
+      revert: () => call('measures.delete', { id: addedId }),
+    });
     this.draft.settle();
     this.draft.location = '';
     this.draft.healthAndSafety = false;

@@ -62,6 +62,9 @@ export class MeasuresEditor {
 
   entries = $derived.by((): readonly MeasureEntry[] => this.#workspace.record?.measures ?? []);
 
+  /** An open form on a stored measure holds changes that are not saved until Save. */
+  hasUnsaved = $derived(Object.keys(this.editing).length > 0);
+
   constructor(workspace: WorkspaceState) {
     this.#workspace = workspace;
     this.adding = new NewMeasure({
@@ -89,8 +92,9 @@ export class MeasuresEditor {
     }
     this.library = library.value.types;
     this.libraryFailure = null;
+    // Kept across visits to the section: a type already chosen (and what was typed) stays.
     const first = this.library[0];
-    if (first !== undefined) this.adding.choose(first.id);
+    if (first !== undefined && this.adding.typeId === '') this.adding.choose(first.id);
   }
 
   typeOf(typeId: string): MeasureType | undefined {
@@ -153,6 +157,11 @@ export class MeasuresEditor {
     }
     // The form stays (saying "Saving…") until the home is read again, so a form opened next
     // starts from what is now stored.
+    this.#workspace.remember({
+      homeId,
+      label: `Changed ${stored.id}`,
+      revert: () => call('measures.update', { id: entry.id, measure: stored }),
+    });
     await this.#reload(homeId);
     delete this.editing[entry.id];
     delete this.rowErrors[entry.id];
@@ -169,7 +178,14 @@ export class MeasuresEditor {
     if (status === 'planned') delete measure.status;
     const reply = await call('measures.update', { id: entry.id, measure });
     this.#settleRow(entry, reply, `${entry.measure.id} is now ${status}.`);
-    if (reply.ok) await this.#reload(homeId);
+    if (!reply.ok) return;
+    const before = entry.measure;
+    this.#workspace.remember({
+      homeId,
+      label: `${before.id} ${status}`,
+      revert: () => call('measures.update', { id: entry.id, measure: before }),
+    });
+    await this.#reload(homeId);
   }
 
   /** Deletes a stored measure (the page has asked for confirmation first). */
@@ -181,6 +197,16 @@ export class MeasuresEditor {
     this.#settleRow(entry, reply, `Deleted ${entry.measure.id}.`);
     if (reply.ok) {
       delete this.editing[entry.id];
+      const deleted = entry.measure;
+      this.#workspace.remember({
+        homeId,
+        label: `Deleted ${deleted.id}`,
+        // Back at the end of the list: the plan's order comes from the ranking, not the list.
+        revert: async () => {
+          const again = await call('measures.add', { homeId, measure: deleted });
+          return again.ok ? { ok: true } : again;
+        },
+      });
       await this.#reload(homeId);
     }
   }
