@@ -159,6 +159,44 @@ describe('the Plan section in chromium', { timeout: TEST_TIMEOUT_MS }, () => {
   });
 });
 
+describe('the working behind a measure’s figures', { timeout: TEST_TIMEOUT_MS }, () => {
+  it('opens by keyboard under the measure’s row, line by line as the plan.explain channel gives them', async () => {
+    const first = report.measures.find((measure) => measure.included);
+    if (first === undefined) throw new Error('the demo home has no measure in its package');
+    const traced = callChannel({ store: project.store }, 'plan.explain', {
+      homeId: home.id,
+      measureId: first.id,
+    });
+    if (!traced.ok) throw new Error(traced.error.message);
+    const watched = await openSectionByKeyboard('Plan');
+    const { page } = watched;
+    const how = page.getByRole('button', { name: `How the figures of ${first.id} are worked out` });
+    await tabTo(page, how, 80);
+    expect(await focusRingShown(page)).toBe(true);
+    await page.keyboard.press('Enter');
+    const working = page.locator(`#working-${first.id}`);
+    await working
+      .getByRole('heading', { name: `How the figures of ${first.id} are worked out` })
+      .waitFor();
+    expect(await how.getAttribute('aria-expanded')).toBe('true');
+    // Every line of the channel's trace, in its order, each with its formula.
+    const shownLabels = await working.locator('ol.lines > li .label').allTextContents();
+    expect(shownLabels.map((text) => text.trim())).toEqual(
+      traced.value.lines.map((line) => line.label),
+    );
+    const text = (await working.textContent()) ?? '';
+    for (const line of traced.value.lines) expect(text).toContain(line.formula);
+    // The money lines end on the plan's own figures for the measure (core/report.ts).
+    expect(text).toContain(formatUsd(first.npvUsd, { cents: true }));
+    expect(await axeViolations(page)).toEqual([]);
+    await page.screenshot({ path: `${SCREENSHOTS}/plan-working.png` });
+    await page.keyboard.press('Enter');
+    await working.waitFor({ state: 'detached' });
+    expectHealthy(watched);
+    await watched.close();
+  });
+});
+
 describe('a health-and-safety measure', { timeout: TEST_TIMEOUT_MS }, () => {
   it('is marked in words in the Plan table', async () => {
     const demoHomes = project.store.read((read) => listHomes(read)).filter((row) => row.isDemo);
