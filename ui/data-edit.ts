@@ -162,7 +162,8 @@ function missingIn(
   const groups = new Set<string>();
   for (const spec of specs) {
     if (!applied.includes(spec.id)) continue;
-    groups.add(groupOf(spec).join('.'));
+    // Top-level values stand alone; only a part (climate, a fuel's price) is saved whole.
+    if (groupOf(spec).length > 0) groups.add(groupOf(spec).join('.'));
     // Saying a part is present (cooling: an air conditioner) opens its own fields' group.
     if (spec.kind === 'choice' && spec.stores === 'presence') groups.add(spec.path.join('.'));
   }

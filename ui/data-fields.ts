@@ -271,6 +271,7 @@ export const EQUIPMENT_FIELDS: readonly DataFieldSpec[] = [
       { value: 'present', words: 'Air conditioner' },
     ],
     stores: 'presence',
+    optional: true,
   },
   {
     kind: 'number',
@@ -287,6 +288,70 @@ export interface PriceRow {
   price: DataFieldSpec;
   change: DataFieldSpec;
 }
+
+const RANKING_CHOICES: readonly Choice[] = [
+  { value: 'sir', words: 'Savings-to-investment ratio (SIR)' },
+  { value: 'npv', words: 'Net present value (NPV)' },
+  { value: 'payback', words: 'Simple payback' },
+  { value: 'cce', words: 'Cost of saved energy' },
+];
+
+const INFILTRATION_CHOICES: readonly Choice[] = [
+  { value: 'nFactor', words: 'N-factor: CFM50 ÷ N (LBL correlation)' },
+  { value: 'lblBasic', words: 'LBL basic model: stack and wind' },
+  { value: 'aim2', words: 'AIM-2 enhanced model: stack, wind and leak placement' },
+  { value: 'ashrae622', words: 'ASHRAE 62.2 effective annual infiltration' },
+];
+
+/** How the home's plan is worked out: the infiltration model, the money, the floor. */
+export const ANALYSIS_FIELDS: readonly DataFieldSpec[] = [
+  {
+    kind: 'choice',
+    id: 'analysis-infiltration',
+    path: ['infiltrationMethod'],
+    label: 'Natural infiltration from',
+    choices: INFILTRATION_CHOICES,
+    stores: 'text',
+    hint: 'The stack and wind models need the heating season’s mean temperature difference and wind',
+  },
+  {
+    kind: 'number',
+    id: 'analysis-n-factor',
+    path: ['nFactorOverride'],
+    label: 'N-factor',
+    unit: 'no unit',
+    optional: true,
+    hint: 'Leave blank to take N from the climate zone, stories and shelter',
+    shownWhen: (data) => data.infiltrationMethod === 'nFactor',
+  },
+  {
+    kind: 'number',
+    id: 'analysis-discount',
+    path: ['economics', 'discountRateReal'],
+    label: 'Discount rate, real',
+    unit: '% a year',
+    percent: true,
+    hint: 'Above inflation; a new home starts from the project’s settings',
+  },
+  {
+    kind: 'choice',
+    id: 'analysis-ranking',
+    path: ['economics', 'ranking'],
+    label: 'Rank measures by',
+    choices: RANKING_CHOICES,
+    stores: 'text',
+    optional: true,
+  },
+  {
+    kind: 'number',
+    id: 'analysis-floor',
+    path: ['leakageFloorCfm50'],
+    label: 'Leakage floor',
+    quantity: 'flowCfm',
+    optional: true,
+    hint: 'The plan never seals below this; leave blank for none',
+  },
+];
 
 /** Each fuel's price and its yearly change; `unitOf` names the unit it is bought in ("therm"). */
 export function priceRows(unitOf: (fuel: Fuel) => string): PriceRow[] {

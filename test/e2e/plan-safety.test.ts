@@ -17,6 +17,7 @@ import { listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
 import { callChannel } from '../../electron/channels.ts';
 import type { BrowserHost } from '../../electron/serve.ts';
 import { axeViolations } from './_lib/axe.ts';
+import { paintedPixels } from './_lib/drawn.ts';
 import { focusRingShown, tabTo } from './_lib/keyboard.ts';
 import { openWatchedPage, type WatchedPage } from './_lib/page-watch.ts';
 import { SCREENSHOTS, SETUP_TIMEOUT_MS, startRig, TEST_TIMEOUT_MS, type Rig } from './_lib/rig.ts';
@@ -38,19 +39,6 @@ function evaluated(homeId: number): EvaluationReport {
 function expectHealthy(watched: WatchedPage): void {
   expect(watched.problems, 'console errors, page errors or failed requests').toEqual([]);
   expect(watched.cspViolations, 'Content Security Policy violations').toEqual([]);
-}
-
-/** How many pixels of a canvas hold paint (alpha above zero). */
-function paintedPixels(page: Page, selector: string): Promise<number> {
-  return page.locator(selector).evaluate((canvas) => {
-    const element = canvas as HTMLCanvasElement;
-    const context = element.getContext('2d');
-    if (context === null) return 0;
-    const { data } = context.getImageData(0, 0, element.width, element.height);
-    let painted = 0;
-    for (let index = 3; index < data.length; index += 4) if ((data[index] ?? 0) > 0) painted++;
-    return painted;
-  });
 }
 
 /** The text of a figure of a list, by its term, spaces folded. */

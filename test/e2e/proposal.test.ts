@@ -22,6 +22,7 @@ import type { HomeFile } from '../../core/schema.ts';
 import { listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
 import { callChannel } from '../../electron/channels.ts';
 import { axeViolations } from './_lib/axe.ts';
+import { folded, holdsFigure, paintedPixels, requireTool } from './_lib/drawn.ts';
 import { focusRingShown, tabTo } from './_lib/keyboard.ts';
 import type { WatchedPage } from './_lib/page-watch.ts';
 import { REPO_ROOT } from './_lib/ui-build.ts';
@@ -50,41 +51,6 @@ function exported(homeId: number): HomeFile {
 function expectHealthy(watched: WatchedPage): void {
   expect(watched.problems, 'console errors, page errors or failed requests').toEqual([]);
   expect(watched.cspViolations, 'Content Security Policy violations').toEqual([]);
-}
-
-/** Fails with the install line when a poppler tool is missing, rather than skipping. */
-function requireTool(name: 'pdftotext' | 'pdftoppm' | 'pdfinfo'): void {
-  try {
-    execFileSync('which', [name], { stdio: 'pipe' });
-  } catch {
-    throw new Error(`${name} is not installed: apt-get install -y poppler-utils`);
-  }
-}
-
-/** A text with every run of white space folded to one space. */
-function folded(text: string | null): string {
-  return (text ?? '').replace(/\s+/g, ' ').trim();
-}
-
-/**
- * Whether `text` holds `figure` as a whole figure: "$130" is not found in "$1,306" or "$130.50".
- */
-function holdsFigure(text: string, figure: string): boolean {
-  const escaped = figure.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-  return new RegExp(`(^|[\\s(])${escaped}(?![\\d]|[.,]\\d)`).test(text);
-}
-
-/** How many pixels of a canvas hold paint (alpha above zero). */
-function paintedPixels(page: Page, selector: string): Promise<number> {
-  return page.locator(selector).evaluate((canvas) => {
-    const element = canvas as HTMLCanvasElement;
-    const context = element.getContext('2d');
-    if (context === null) return 0;
-    const { data } = context.getImageData(0, 0, element.width, element.height);
-    let painted = 0;
-    for (let index = 3; index < data.length; index += 4) if ((data[index] ?? 0) > 0) painted++;
-    return painted;
-  });
 }
 
 function sumUsd(measures: readonly MeasureReport[], pick: (m: MeasureReport) => number): Decimal {

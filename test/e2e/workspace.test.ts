@@ -19,6 +19,7 @@ import { listLeakageTests, type LeakageTestRecord } from '../../db/repositories/
 import { getSettings } from '../../db/repositories/settings.ts';
 import type { BrowserHost } from '../../electron/serve.ts';
 import { axeViolations } from './_lib/axe.ts';
+import { paintedPixels } from './_lib/drawn.ts';
 import { focusRingShown, tabTo } from './_lib/keyboard.ts';
 import { openWatchedPage, type WatchedPage } from './_lib/page-watch.ts';
 import { SCREENSHOTS, SETUP_TIMEOUT_MS, startRig, TEST_TIMEOUT_MS, type Rig } from './_lib/rig.ts';
@@ -71,19 +72,6 @@ async function figureValue(page: Page, scope: string, term: string): Promise<num
   const match = /-?[\d,]+(\.\d+)?/.exec(text);
   if (match === null) throw new Error(`no number in "${text}" for ${term}`);
   return Number(match[0].replace(/,/g, ''));
-}
-
-/** How many pixels of a canvas hold paint (alpha above zero). */
-function paintedPixels(page: Page, selector: string): Promise<number> {
-  return page.locator(selector).evaluate((canvas) => {
-    const element = canvas as HTMLCanvasElement;
-    const context = element.getContext('2d');
-    if (context === null) return 0;
-    const { data } = context.getImageData(0, 0, element.width, element.height);
-    let painted = 0;
-    for (let index = 3; index < data.length; index += 4) if ((data[index] ?? 0) > 0) painted++;
-    return painted;
-  });
 }
 
 function storedHouse(homeId: number) {

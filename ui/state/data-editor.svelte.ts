@@ -16,6 +16,7 @@ const PART_LABELS: Readonly<Record<string, string>> = {
   climate: 'Climate',
   heating: 'Heating',
   cooling: 'Cooling',
+  economics: 'Analysis',
 };
 
 function capitalized(text: string): string {

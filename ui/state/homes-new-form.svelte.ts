@@ -95,13 +95,22 @@ export class NewHomeForm {
   /** Why the project's clients or units could not be read, if they could not. */
   loadFailure = $state<string | null>(null);
 
-  /** Reads the project's clients and units. */
+  /** The project's discount rate and ranking, which a new home starts from. */
+  #economics: NonNullable<HomeInput['data']['economics']> | null = null;
+
+  /** Reads the project's clients, units, discount rate and ranking. */
   async prepare(): Promise<void> {
     const [clients, settings] = await Promise.all([
       call('clients.list', {}),
       call('settings.get', {}),
     ]);
-    if (settings.ok) this.units = settings.value.units;
+    if (settings.ok) {
+      this.units = settings.value.units;
+      this.#economics = {
+        discountRateReal: settings.value.discountRateReal,
+        ranking: settings.value.ranking,
+      };
+    }
     if (clients.ok) {
       this.clients = clients.value.map((client) => ({ id: client.id, name: client.name }));
     }
@@ -165,7 +174,13 @@ export class NewHomeForm {
     const input: HomeInput = {
       name: this.draft.name.trim(),
       jobStatus: this.draft.jobStatus as HomeInput['jobStatus'],
-      data: { house: house as unknown as NonNullable<HomeInput['data']['house']> },
+      data: {
+        house: house as unknown as NonNullable<HomeInput['data']['house']>,
+        // A new home starts from the project's analysis settings and the simplest
+        // infiltration model; the House section's Analysis panel changes either.
+        ...(this.#economics === null ? {} : { economics: this.#economics }),
+        infiltrationMethod: 'nFactor',
+      },
     };
     if (Object.keys(address).length > 0) input.address = address;
     const notes = this.draft.notes.trim();

@@ -15,7 +15,7 @@ export async function tabTo(page: Page, target: Locator, maxPresses = 60): Promi
     if (await target.evaluate((element) => element === document.activeElement)) return presses;
     await page.keyboard.press('Tab');
   }
-  throw new Error(`Tab did not reach the element in ${maxPresses} presses`);
+  throw new Error(`Tab did not reach ${target.toString()} in ${maxPresses} presses`);
 }
 
 /** Whether the focused element shows a visible focus ring (an outline of 2 px or more). */
