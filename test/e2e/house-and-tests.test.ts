@@ -367,6 +367,42 @@ describe('undo and shortcuts', { timeout: TEST_TIMEOUT_MS }, () => {
     await watched.close();
   });
 
+  it('keeps the House editor on what is stored after an undo made from another section', async () => {
+    const home = demoHomes[7];
+    if (home === undefined) throw new Error('no eighth demo home');
+    const original = storedData(home.id).house;
+    if (original === undefined) throw new Error('the demo home has no house');
+    const watched = await openSection(home.id, 'house', 'House');
+    const { page } = watched;
+    await typeAndLeave(page, 'house-bedrooms', String(original.bedrooms + 2));
+    await waitForStored(
+      () => storedData(home.id).house?.bedrooms,
+      (n) => n === original.bedrooms + 2,
+    );
+    // Away to the Plan, the edit undone there, and back: the box shows the stored value, and
+    // a later edit of another field does not bring the undone value back.
+    await page.keyboard.press('Alt+4');
+    await page.getByRole('heading', { level: 2, name: 'Plan' }).waitFor();
+    await page.getByRole('button', { name: 'Undo: Bedrooms' }).click();
+    await waitForStored(
+      () => storedData(home.id).house?.bedrooms,
+      (n) => n === original.bedrooms,
+    );
+    await page.keyboard.press('Alt+1');
+    await page.getByRole('heading', { level: 2, name: 'House' }).waitFor();
+    await expect
+      .poll(() => page.locator('#house-bedrooms').inputValue())
+      .toBe(String(original.bedrooms));
+    await typeAndLeave(page, 'house-yearBuilt', '1949');
+    const house = await waitForStored(
+      () => storedData(home.id).house,
+      (stored) => stored?.yearBuilt === 1949,
+    );
+    expect(house).toEqual({ ...original, yearBuilt: 1949 });
+    expectHealthy(watched);
+    await watched.close();
+  });
+
   it('lists the shortcuts in a dialog opened with ? and closed with Esc, and Alt+digit moves', async () => {
     const home = demoHomes[0];
     if (home === undefined) throw new Error('no demo home');

@@ -177,6 +177,9 @@ export class MeasuresEditor {
     const measure: Measure = { ...entry.measure, status };
     if (status === 'planned') delete measure.status;
     const reply = await call('measures.update', { id: entry.id, measure });
+    // The home and its plan are asked for first, so they are on their way while the page
+    // says what was done.
+    const reloaded = reply.ok ? this.#reload(homeId) : Promise.resolve();
     this.#settleRow(entry, reply, `${entry.measure.id} is now ${status}.`);
     if (!reply.ok) return;
     const before = entry.measure;
@@ -185,7 +188,7 @@ export class MeasuresEditor {
       label: `${before.id} ${status}`,
       revert: () => call('measures.update', { id: entry.id, measure: before }),
     });
-    await this.#reload(homeId);
+    await reloaded;
   }
 
   /** Deletes a stored measure (the page has asked for confirmation first). */
@@ -230,9 +233,7 @@ export class MeasuresEditor {
 
   /** Reads the home again and asks for its plan again, if it is still the open one. */
   async #reload(homeId: number): Promise<void> {
-    const reply = await call('homes.get', { id: homeId });
     if (this.#workspace.homeId !== homeId) return;
-    if (reply.ok) this.#workspace.record = reply.value;
-    void this.#workspace.reloadReport();
+    await this.#workspace.reloadHome();
   }
 }

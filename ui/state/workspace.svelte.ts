@@ -90,7 +90,13 @@ export class WorkspaceState {
     const key = `${this.homeId ?? 'none'}/${kind}`;
     const kept = this.#editors.get(key) as Editor | undefined;
     if (kept !== undefined) return kept;
-    const made = make();
+    // Made under a root of its own, not under the section that first asks: the editor's
+    // derived values would otherwise stop following the home once that section is gone.
+    let made: Editor | undefined;
+    $effect.root(() => {
+      made = make();
+    });
+    if (made === undefined) throw new Error(`the ${kind} editor was not made`);
     this.#editors.set(key, made);
     return made;
   }
@@ -164,7 +170,8 @@ export class WorkspaceState {
   async reloadHome(): Promise<void> {
     const homeId = this.homeId;
     if (homeId === null) return;
-    if (await this.#loadHome(homeId)) await this.#loadReport(homeId);
+    // Both read what the store holds now, so they are asked at once: one round trip saved.
+    await Promise.all([this.#loadHome(homeId), this.#loadReport(homeId)]);
   }
 
   /**
@@ -190,10 +197,7 @@ export class WorkspaceState {
       label,
       revert: () => call('homes.update', { id: homeId, home: before }),
     });
-    if (this.homeId === homeId) {
-      await this.#loadHome(homeId);
-      void this.#loadReport(homeId);
-    }
+    if (this.homeId === homeId) await this.reloadHome();
     return { ok: true };
   }
 
