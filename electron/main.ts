@@ -315,7 +315,8 @@ function createWindow(store: Store): BrowserWindow {
       cancelId: 0,
       title: 'Figures not saved',
       message: 'Some figures you typed are not saved yet.',
-      detail: 'They are still in their boxes, most often because Sealwork could not accept them as typed.',
+      detail:
+        'They are still in their boxes, most often because Sealwork could not accept them as typed.',
     });
     if (choice === 1) event.preventDefault(); // preventing the prevention lets the page close
   });

@@ -58,3 +58,24 @@ export function linearAxis(
     grid: { color: paletteColour('--line-soft') },
   };
 }
+
+/** What every chart's options start from: drawn at once (printing and tests see it whole) and sized by its box. */
+export const CHART_BASE = {
+  animation: false,
+  responsive: true,
+  maintainAspectRatio: false,
+} as const;
+
+/**
+ * The look of a chart's main series: the page's green line with amber points turned on
+ * their corners, so points read without the colour.
+ */
+export function mainSeriesStyle() {
+  return {
+    borderColor: paletteColour('--spruce'),
+    backgroundColor: paletteColour('--focus'),
+    borderWidth: 2,
+    pointRadius: 5,
+    pointStyle: 'rectRot' as const,
+  };
+}
