@@ -62,6 +62,7 @@ export function storedText(spec: DataFieldSpec, data: HomeData, units: UnitSyste
       if (spec.stores === 'presence')
         return value === undefined || value === null ? 'none' : 'present';
       if (spec.stores === 'yesNo') return value === false ? 'no' : 'yes';
+      if (spec.stores === 'flag') return value === true ? 'yes' : 'no';
       return value === undefined ? '' : String(value);
   }
 }
@@ -96,7 +97,9 @@ function parseTyped(spec: DataFieldSpec, text: string, data: HomeData, units: Un
         : { kind: 'value', value: text.trim() };
     case 'choice': {
       if (spec.stores === 'number') return { kind: 'value', value: Number(text) };
-      if (spec.stores === 'yesNo') return { kind: 'value', value: text === 'yes' };
+      if (spec.stores === 'yesNo' || spec.stores === 'flag') {
+        return { kind: 'value', value: text === 'yes' };
+      }
       if (spec.stores === 'presence') {
         if (text === 'none') return { kind: 'value', value: null };
         const current = valueAt(data, spec.path);

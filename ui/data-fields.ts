@@ -44,8 +44,12 @@ export interface NumberFieldSpec extends FieldBase {
 export interface ChoiceFieldSpec extends FieldBase {
   kind: 'choice';
   choices: readonly Choice[];
-  /** How a choice's value is stored. */
-  stores: 'text' | 'number' | 'yesNo' | 'presence';
+  /**
+   * How a choice's value is stored: as text or a number; `yesNo` a flag that is yes unless
+   * stored as no; `flag` one that is no unless stored as yes; `presence` a part present or
+   * null.
+   */
+  stores: 'text' | 'number' | 'yesNo' | 'flag' | 'presence';
 }
 
 export interface TextFieldSpec extends FieldBase {
@@ -382,3 +386,65 @@ export function priceRows(unitOf: (fuel: Fuel) => string): PriceRow[] {
 export function priceFields(unitOf: (fuel: Fuel) => string): DataFieldSpec[] {
   return priceRows(unitOf).flatMap((row) => [row.price, row.change]);
 }
+
+const YES_NO: readonly Choice[] = [
+  { value: 'no', words: 'No' },
+  { value: 'yes', words: 'Yes' },
+];
+
+/**
+ * What the Safety section records about the house and its air: the fans that already run,
+ * the fan a tighter house would get, and what was seen that calls for care before sealing.
+ */
+export const SITE_SAFETY_FIELDS: readonly DataFieldSpec[] = [
+  {
+    kind: 'number',
+    id: 'ventilation-existing',
+    path: ['ventilation', 'existingFanCfm'],
+    label: 'Fans already running continuously',
+    quantity: 'flowCfm',
+    optional: true,
+    hint: 'Measured flow of exhaust or supply fans that run all the time; blank for none',
+  },
+  {
+    kind: 'choice',
+    id: 'ventilation-type',
+    path: ['ventilation', 'fanType'],
+    label: 'Kind of fan added when one is needed',
+    choices: [
+      { value: '', words: 'Not chosen (exhaust)' },
+      { value: 'exhaust', words: 'Exhaust' },
+      { value: 'supply', words: 'Supply' },
+      { value: 'balanced', words: 'Balanced' },
+    ],
+    stores: 'text',
+    optional: true,
+  },
+  {
+    kind: 'number',
+    id: 'ventilation-cost',
+    path: ['ventilation', 'fanCostUsd'],
+    label: 'Installed cost of that fan',
+    unit: 'USD',
+    optional: true,
+    hint: 'This job’s price; blank uses a default',
+  },
+  {
+    kind: 'choice',
+    id: 'house-knob-and-tube',
+    path: ['house', 'knobAndTubeWiring'],
+    label: 'Knob-and-tube wiring seen',
+    choices: YES_NO,
+    stores: 'flag',
+    optional: true,
+  },
+  {
+    kind: 'choice',
+    id: 'house-vermiculite',
+    path: ['house', 'vermiculiteSuspected'],
+    label: 'Vermiculite insulation suspected',
+    choices: YES_NO,
+    stores: 'flag',
+    optional: true,
+  },
+];

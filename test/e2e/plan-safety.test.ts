@@ -13,7 +13,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formatUsd } from '../../core/format.ts';
 import type { EvaluationReport } from '../../core/report.ts';
-import { listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
+import { getHome, listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
 import { callChannel } from '../../electron/channels.ts';
 import type { BrowserHost } from '../../electron/serve.ts';
 import { axeViolations } from './_lib/axe.ts';
@@ -234,6 +234,84 @@ describe('the Safety section in chromium', { timeout: TEST_TIMEOUT_MS }, () => {
     expect(overflowPx).toBeLessThanOrEqual(0);
     expect(await axeViolations(page)).toEqual([]);
     await page.screenshot({ path: join(SCREENSHOTS, 'workspace-safety.png'), fullPage: true });
+    expectHealthy(watched);
+    await watched.close();
+  });
+});
+
+describe('the Safety section’s appliances and site', { timeout: TEST_TIMEOUT_MS }, () => {
+  /** A demo home whose package tightens it and whose burners are all sealed, by the store. */
+  function sealedHome(): HomeSummary {
+    const demoHomes = project.store.read((read) => listHomes(read)).filter((row) => row.isDemo);
+    const found = demoHomes.find((row) => {
+      const data = project.store.read((read) => getHome(read, row.id)).data;
+      const reply = callChannel({ store: project.store }, 'plan.evaluate', { homeId: row.id });
+      return (
+        reply.ok &&
+        reply.value.package.reductionCfm50 > 0 &&
+        !reply.value.cautions.some((caution) => caution.code === 'natural-draft-appliance') &&
+        (data.combustionAppliances ?? []).every((appliance) => appliance.venting === 'sealed')
+      );
+    });
+    if (found === undefined) throw new Error('no tightened demo home with only sealed burners');
+    return found;
+  }
+
+  function cautionCodes(homeId: number): string[] {
+    const reply = callChannel({ store: project.store }, 'plan.evaluate', { homeId });
+    if (!reply.ok) throw new Error(reply.error.message);
+    return reply.value.cautions.map((caution) => caution.code);
+  }
+
+  async function shownCodes(page: Page): Promise<string[]> {
+    return page
+      .locator('li[data-caution-code]')
+      .evaluateAll((items) => items.map((item) => item.getAttribute('data-caution-code') ?? ''));
+  }
+
+  it('adds a natural-draft water heater and the evaluation’s natural-draft caution appears', async () => {
+    const target = sealedHome();
+    const before =
+      project.store.read((read) => getHome(read, target.id)).data.combustionAppliances ?? [];
+    const watched = await openWatchedPage(browser, host.url);
+    const { page } = watched;
+    await page.getByRole('table').first().waitFor();
+    await page.evaluate((hash) => (location.hash = hash), `#/homes/${target.id}/safety`);
+    await page.getByRole('heading', { level: 2, name: 'Safety' }).waitFor();
+    await page.locator('#appliance-kind').selectOption('waterHeater');
+    await page.locator('#appliance-fuel').selectOption('naturalGas');
+    await page.locator('#appliance-venting').selectOption('naturalDraft');
+    await page.getByRole('button', { name: 'Add the appliance' }).click();
+    await expect
+      .poll(() => project.store.read((read) => getHome(read, target.id)).data.combustionAppliances)
+      .toEqual([
+        ...before,
+        {
+          kind: 'waterHeater',
+          fuel: 'naturalGas',
+          venting: 'naturalDraft',
+          insidePressureBoundary: true,
+        },
+      ]);
+    // The screen lists the evaluation's cautions for the home as it now is, in their order.
+    const codes = cautionCodes(target.id);
+    expect(codes).toContain('natural-draft-appliance');
+    await expect.poll(() => shownCodes(page)).toEqual(codes);
+
+    await page.locator('#house-knob-and-tube').selectOption('yes');
+    await expect
+      .poll(
+        () => project.store.read((read) => getHome(read, target.id)).data.house?.knobAndTubeWiring,
+      )
+      .toBe(true);
+    await expect.poll(() => shownCodes(page)).toEqual(cautionCodes(target.id));
+    expect(await axeViolations(page)).toEqual([]);
+    await page.screenshot({ path: join(SCREENSHOTS, 'safety-appliances.png'), fullPage: true });
+
+    await page.getByRole('button', { name: /^Remove the water heater, natural gas/ }).click();
+    await expect
+      .poll(() => project.store.read((read) => getHome(read, target.id)).data.combustionAppliances)
+      .toEqual(before);
     expectHealthy(watched);
     await watched.close();
   });

@@ -10,6 +10,7 @@ import {
   EQUIPMENT_FIELDS,
   HOUSE_DATA_FIELDS,
   priceFields,
+  SITE_SAFETY_FIELDS,
   type DataFieldSpec,
 } from '../../ui/data-fields.ts';
 import {
@@ -21,7 +22,13 @@ import {
 } from '../../ui/data-edit.ts';
 
 const PRICE_FIELDS = priceFields((fuel) => (fuel === 'electricity' ? 'kWh' : 'therm'));
-const ALL = [...HOUSE_DATA_FIELDS, ...CLIMATE_FIELDS, ...EQUIPMENT_FIELDS, ...PRICE_FIELDS];
+const ALL = [
+  ...HOUSE_DATA_FIELDS,
+  ...CLIMATE_FIELDS,
+  ...EQUIPMENT_FIELDS,
+  ...PRICE_FIELDS,
+  ...SITE_SAFETY_FIELDS,
+];
 
 function spec(id: string): DataFieldSpec {
   const found = ALL.find((field) => field.id === id);
@@ -183,6 +190,23 @@ describe('drafting one part of a home', () => {
       'IP',
     );
     expect(draft.missing).toEqual(['HSPF']);
+  });
+});
+
+describe('what was seen at the house', () => {
+  it('reads a hazard not recorded as not seen, and stores yes and no as flags', () => {
+    expect(storedText(spec('house-knob-and-tube'), { house: HOUSE }, 'IP')).toBe('no');
+    const seen = draftPart({ house: HOUSE }, ALL, { 'house-knob-and-tube': 'yes' }, 'house', 'IP');
+    expect(seen.data.house).toEqual({ ...HOUSE, knobAndTubeWiring: true });
+    const cleared = draftPart(seen.data, ALL, { 'house-knob-and-tube': 'no' }, 'house', 'IP');
+    expect(cleared.data.house?.knobAndTubeWiring).toBe(false);
+  });
+
+  it('starts a ventilation part from one figure, all of its fields being optional', () => {
+    const draft = draftPart({}, ALL, { 'ventilation-existing': '20' }, 'ventilation', 'SI');
+    expect(draft.missing).toEqual([]);
+    // 20 L/s = 20 / (0.3048³ × 1000 / 60) cfm (NIST SP 811: 1 ft = 0.3048 m).
+    expect(draft.data.ventilation?.existingFanCfm).toBeCloseTo(20 / ((0.3048 ** 3 * 1000) / 60), 9);
   });
 });
 
