@@ -10,6 +10,15 @@ import { classifySqliteError, DbError } from './errors.ts';
 import { LATEST_SCHEMA_VERSION } from './migrations/index.ts';
 import type { Store } from './store.ts';
 
+/** Where better-sqlite3's addon is, when not the one built for Node (the desktop app's). */
+export interface NativeOptions {
+  nativeBinding?: string;
+}
+
+function native(options: NativeOptions): { nativeBinding?: string } {
+  return options.nativeBinding === undefined ? {} : { nativeBinding: options.nativeBinding };
+}
+
 /** Writes a backup of the open project to `backupPath` (replacing a file already there). */
 export function backupTo(store: Store, backupPath: string): void {
   const partial = `${backupPath}.partial`;
@@ -31,12 +40,12 @@ export function backupTo(store: Store, backupPath: string): void {
  *
  * @returns its schema version
  */
-export function checkBackup(backupPath: string): number {
+export function checkBackup(backupPath: string, options: NativeOptions = {}): number {
   if (!existsSync(backupPath))
     throw new DbError('notFound', `${backupPath}: no such file`, { field: 'file' });
   let sqlite: Database.Database | undefined;
   try {
-    sqlite = new Database(backupPath, { readonly: true, fileMustExist: true });
+    sqlite = new Database(backupPath, { readonly: true, fileMustExist: true, ...native(options) });
     const integrity = sqlite.pragma('integrity_check', { simple: true });
     if (integrity !== 'ok')
       throw new DbError('corrupt', `${backupPath} is damaged (${String(integrity)})`);
@@ -69,12 +78,20 @@ export function checkBackup(backupPath: string): number {
  * must be closed; the old file is kept beside it as `<name>.before-restore` until the next
  * restore.
  */
-export function restoreFrom(backupPath: string, projectPath: string): void {
-  checkBackup(backupPath);
+export function restoreFrom(
+  backupPath: string,
+  projectPath: string,
+  options: NativeOptions = {},
+): void {
+  checkBackup(backupPath, options);
   mkdirSync(dirname(projectPath), { recursive: true });
   const incoming = `${projectPath}.restoring`;
   rmSync(incoming, { force: true });
-  const source = new Database(backupPath, { readonly: true, fileMustExist: true });
+  const source = new Database(backupPath, {
+    readonly: true,
+    fileMustExist: true,
+    ...native(options),
+  });
   try {
     source.prepare('VACUUM INTO ?').run(incoming);
   } finally {
@@ -82,7 +99,7 @@ export function restoreFrom(backupPath: string, projectPath: string): void {
   }
   if (existsSync(projectPath)) {
     // Fold the old file's WAL in first so the kept copy is whole.
-    const old = new Database(projectPath);
+    const old = new Database(projectPath, native(options));
     try {
       old.pragma('wal_checkpoint(TRUNCATE)');
     } finally {

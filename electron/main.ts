@@ -19,7 +19,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join, normalize, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { parseArgs } from 'node:util';
-import { backupTo } from '../db/backup.ts';
+import { backupTo, checkBackup, restoreFrom } from '../db/backup.ts';
 import { defaultProjectPath, openProject } from '../db/project.ts';
 import type { Store } from '../db/store.ts';
 import { CHANNEL_NAMES, ipcName } from './channel-names.ts';
@@ -117,6 +117,7 @@ function buildMenu(window: BrowserWindow, store: Store): Menu {
         accelerator: item.accelerator,
         click: () => {
           if (command === 'backup') void backupWithDialog(window, store);
+          else if (command === 'restore') void restoreWithDialog(window, store);
           else if (command === 'importFile') void importWithDialog(window, store);
           else if (command === 'printProposal') void printProposal(window);
           else if (command) send(command);
@@ -140,6 +141,51 @@ async function backupWithDialog(window: BrowserWindow, store: Store): Promise<vo
   } catch (error) {
     dialog.showErrorBox('The backup was not written', (error as Error).message);
   }
+}
+
+/** Where the open project lives and the addon it was opened with, for a restore. */
+let openedProject: { path: string; nativeBinding: string } | null = null;
+
+/**
+ * Replaces the project with a backup the user picks, after checking it and asking: the
+ * project as it is now is kept beside it (`.before-restore`), then Sealwork starts again on
+ * the restored file.
+ */
+async function restoreWithDialog(window: BrowserWindow, store: Store): Promise<void> {
+  if (openedProject === null) return;
+  const choice = await dialog.showOpenDialog(window, {
+    title: 'Restore the project from a backup',
+    properties: ['openFile'],
+    filters: [{ name: 'Sealwork project', extensions: ['db'] }],
+  });
+  const backupPath = choice.filePaths[0];
+  if (choice.canceled || !backupPath) return;
+  const native = { nativeBinding: openedProject.nativeBinding };
+  try {
+    checkBackup(backupPath, native);
+  } catch (error) {
+    dialog.showErrorBox('This backup cannot be restored', (error as Error).message);
+    return;
+  }
+  const answer = await dialog.showMessageBox(window, {
+    type: 'warning',
+    buttons: ['Restore and start again', 'Keep the project as it is'],
+    defaultId: 1,
+    cancelId: 1,
+    title: 'Restore from a backup',
+    message: 'Replace the project with this backup?',
+    detail:
+      'Everything changed since the backup was made is replaced. The project as it is now is kept beside it, named “.before-restore”, until the next restore.',
+  });
+  if (answer.response !== 0) return;
+  store.close();
+  try {
+    restoreFrom(backupPath, openedProject.path, native);
+  } catch (error) {
+    dialog.showErrorBox('The backup was not restored', (error as Error).message);
+  }
+  app.relaunch();
+  app.exit(0);
 }
 
 /** Imports a home file or a portfolio CSV the user picks, then tells the page to refresh. */
@@ -390,6 +436,7 @@ function start(): void {
       demoWhenNew: values.db === undefined || values.demo === true,
       nativeBinding,
     });
+    openedProject = { path, nativeBinding };
     serveApp();
     exposeChannels(store);
     exposeHomeFileSaving(store);

@@ -7,6 +7,8 @@
  */
 import { call } from '../bridge.ts';
 import type { LeakageTestKind, OtherLeakageTest } from '../../core/schema.ts';
+import { messageInShownUnits } from '../data-edit.ts';
+import type { DataFieldSpec } from '../data-fields.ts';
 import { checkDraft, type ReadingRow, type TestMethod } from '../test-draft.ts';
 import type { WorkspaceState } from './workspace.svelte.ts';
 
@@ -15,6 +17,15 @@ export type EntryStatus =
   | { kind: 'saving' }
   | { kind: 'saved'; words: string }
   | { kind: 'refused'; words: string };
+
+/** How a flow's refusal is restated: a flow at 50 Pa, in cfm or L/s. */
+const FLOW_FIELD: DataFieldSpec = {
+  kind: 'number',
+  id: 'test-flow',
+  path: ['flow'],
+  label: 'Flow',
+  quantity: 'flowCfm',
+};
 
 /** A blank row count that suits a usual multipoint test (five to ten readings). */
 const FIRST_ROWS = 5;
@@ -134,9 +145,15 @@ export class TestEntry {
     const activeRows = this.rows.filter(
       (row) => row.pressurePa.trim() !== '' || row.flow.trim() !== '',
     );
+    const units = this.#workspace.units;
     for (const problem of problems) {
       const reading = /^test\.points\[(\d+)\]\.(pa|cfm)$/.exec(problem.path);
-      const words = `${problem.message.charAt(0).toUpperCase()}${problem.message.slice(1)}.`;
+      // Flows are stored in cfm; a limit the store quotes is restated in the unit typed.
+      const isFlow = reading?.[2] === 'cfm' || problem.path === 'test.cfm50';
+      const message = isFlow
+        ? messageInShownUnits(problem.message, FLOW_FIELD, units)
+        : problem.message;
+      const words = `${message.charAt(0).toUpperCase()}${message.slice(1)}.`;
       if (reading !== null) {
         const row = activeRows[Number(reading[1])];
         if (row !== undefined)
