@@ -119,6 +119,21 @@ describe('the Settings screen in chromium', { timeout: TEST_TIMEOUT_MS }, () => 
     expect(project.store.read((read) => getSettings(read))).toEqual(before);
     expect(await axeViolations(page)).toEqual([]);
     await page.screenshot({ path: join(SCREENSHOTS, 'settings-refused.png'), fullPage: true });
+    // Away to the Library and back: the refused figure is still in its box, with its reason.
+    await page
+      .getByRole('navigation', { name: 'Screens' })
+      .getByRole('link', { name: 'Library' })
+      .click();
+    await page.getByRole('heading', { level: 1, name: 'Library' }).waitFor();
+    await page
+      .getByRole('navigation', { name: 'Screens' })
+      .getByRole('link', { name: 'Settings' })
+      .click();
+    await page.locator('#setting-discountRateReal').waitFor();
+    expect(await page.locator('#setting-discountRateReal').inputValue()).toBe('50');
+    expect(await page.locator('#setting-discountRateReal').getAttribute('aria-invalid')).toBe(
+      'true',
+    );
     expectHealthy(watched);
     await watched.close();
   });

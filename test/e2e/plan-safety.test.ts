@@ -11,7 +11,7 @@
 import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { formatUsd } from '../../core/format.ts';
+import { formatUsd, formatYears } from '../../core/format.ts';
 import type { EvaluationReport } from '../../core/report.ts';
 import { getHome, listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
 import { callChannel } from '../../electron/channels.ts';
@@ -107,6 +107,14 @@ describe('the Plan section in chromium', { timeout: TEST_TIMEOUT_MS }, () => {
     for (const measure of report.measures.filter((entry) => entry.sirBelowOne)) {
       const row = page.locator(`tr[data-measure-id="${measure.id}"]`);
       expect(await row.locator('td.sir').textContent()).toContain('below 1');
+    }
+    // Each row's payback and cost of saved energy, as the report gives them (core/format.ts).
+    for (const measure of report.measures) {
+      const text = (await page.locator(`tr[data-measure-id="${measure.id}"]`).textContent()) ?? '';
+      expect(text).toContain(formatYears(measure.simplePaybackYears));
+      expect(text).toContain(
+        measure.cceUsdPerMMBtu === null ? '—' : formatUsd(measure.cceUsdPerMMBtu, { cents: true }),
+      );
     }
     for (const measure of report.measures.filter((entry) => !entry.included)) {
       const row = page.locator(`tr[data-measure-id="${measure.id}"]`);

@@ -4,6 +4,7 @@
  */
 import type { MeasureType } from '../../core/measure-library/types.ts';
 import { call } from '../bridge.ts';
+import { TypeEditForm } from './type-edit-form.svelte.ts';
 
 export type SaveOutcome =
   { ok: true } | { ok: false; message: string; problems: { path: string; message: string }[] };
@@ -23,6 +24,25 @@ export class LibraryState {
   editedIds = $state<string[]>([]);
   loaded = $state(false);
   failure = $state<string | null>(null);
+  /** The edit forms open, by type id: kept with the library so leaving the screen keeps them. */
+  forms = $state<Record<string, TypeEditForm>>({});
+
+  /** Whether an open form holds figures or a note not saved yet. */
+  hasUnsaved = $derived(Object.values(this.forms).some((form) => form.hasUnsaved));
+
+  /** Opens (or keeps open) the edit form of a type, filled from its figures now. */
+  openForm(type: MeasureType): TypeEditForm {
+    const open = this.forms[type.id];
+    if (open !== undefined) return open;
+    const form = new TypeEditForm(this, type);
+    this.forms[type.id] = form;
+    return form;
+  }
+
+  /** Closes a type's edit form; what was typed there is dropped. */
+  closeForm(typeId: string): void {
+    delete this.forms[typeId];
+  }
 
   /** Reads the library and the shipped types. */
   async load(): Promise<void> {

@@ -82,6 +82,7 @@ export class SettingsEditor {
   stored = $state<Settings | null>(null);
   failure = $state<string | null>(null);
   typed = $state<Partial<Record<SettingKey, string>>>({});
+  hasUnsaved = $derived(Object.keys(this.typed).length > 0);
   errors = $state<Partial<Record<SettingKey, string>>>({});
   status = $state<SaveStatus>({ kind: 'idle' });
 

@@ -79,6 +79,14 @@ export class TypeEditForm {
   /** A refusal that names no one box. */
   failure = $state<string | null>(null);
   saving = $state(false);
+  #initialNote = '';
+
+  /** Whether a figure or the note differs from what the form opened with. */
+  hasUnsaved = $derived.by(
+    () =>
+      this.note !== this.#initialNote ||
+      EDIT_BOXES.some((box) => this.texts[box.key] !== this.#initial[box.key]),
+  );
 
   constructor(library: LibraryState, type: MeasureType) {
     this.#library = library;
@@ -87,6 +95,7 @@ export class TypeEditForm {
     this.texts = { ...this.#initial };
     const own = Object.values(type.sources).find((source) => source.mark === 'user edit');
     this.note = own?.citation ?? '';
+    this.#initialNote = this.note;
   }
 
   /** Saves the edit; true when the store took it. */

@@ -3,8 +3,8 @@
  * units the project shows, the changes to it saved through homes.update, and the session's
  * edits that can be undone. Replies for a home that is no longer the open one are dropped.
  */
-import { SvelteMap } from 'svelte/reactivity';
 import { call } from '../bridge.ts';
+import { KeptEditors, type HoldsDrafts } from './kept-editors.svelte.ts';
 import type { ChannelRequest, ChannelResponse } from '../../electron/channels.ts';
 import type { EvaluationReport } from '../../core/report.ts';
 import type { UnitSystem } from '../quantities.ts';
@@ -24,11 +24,6 @@ export interface UndoableEdit {
   /** What was changed, in words: "Floor area", "Added test-out". */
   label: string;
   revert(): Promise<{ ok: true } | { ok: false; error: { message: string } }>;
-}
-
-/** An editor holding typed text that may not be saved yet. */
-export interface HoldsDrafts {
-  readonly hasUnsaved: boolean;
 }
 
 /** How many edits of a session can be undone. */
@@ -74,10 +69,10 @@ export class WorkspaceState {
   /** The label of the edit last undone, for the status line. */
   undone = $state<string | null>(null);
   /** The editors of each home opened, kept across section changes so nothing typed is lost. */
-  #editors = new SvelteMap<string, HoldsDrafts>();
+  #editors = new KeptEditors();
 
   /** Whether any home's editor holds typed text not saved yet (the page warns before closing). */
-  hasUnsaved = $derived([...this.#editors.values()].some((editor) => editor.hasUnsaved));
+  hasUnsaved = $derived(this.#editors.hasUnsaved);
 
   /**
    * The open home's editor of one kind, made once and kept while the page is open: leaving a
@@ -87,18 +82,7 @@ export class WorkspaceState {
    * @param make - makes the editor the first time
    */
   editor<Editor extends HoldsDrafts>(kind: string, make: () => Editor): Editor {
-    const key = `${this.homeId ?? 'none'}/${kind}`;
-    const kept = this.#editors.get(key) as Editor | undefined;
-    if (kept !== undefined) return kept;
-    // Made under a root of its own, not under the section that first asks: the editor's
-    // derived values would otherwise stop following the home once that section is gone.
-    let made: Editor | undefined;
-    $effect.root(() => {
-      made = make();
-    });
-    if (made === undefined) throw new Error(`the ${kind} editor was not made`);
-    this.#editors.set(key, made);
-    return made;
+    return this.#editors.editor(`${this.homeId ?? 'none'}/${kind}`, make);
   }
 
   /** Opens a home (again, when it is already open, only if it failed to load). */
