@@ -8,15 +8,9 @@ import type { HomeData } from '../core/schema.ts';
 import { groupOf, partOf, type DataFieldSpec } from './data-fields.ts';
 import { formatNumber } from '../core/format.ts';
 import { inputText, shownValue, storedValue, unitOf, type UnitSystem } from './quantities.ts';
+import { parseNumber } from './text.ts';
 
 type Tree = Record<string, unknown>;
-
-/** Text typed as a number: separators allowed ("1,850"), nothing else. */
-export function parseNumber(text: string): number | null {
-  const cleaned = text.trim().replace(/,/g, '');
-  if (cleaned === '' || !/^[-+]?(\d+\.?\d*|\.\d+)$/.test(cleaned)) return null;
-  return Number(cleaned);
-}
 
 function isTree(value: unknown): value is Tree {
   return typeof value === 'object' && value !== null && !Array.isArray(value);

@@ -15,6 +15,7 @@ import {
   workUnitOf,
   type UnitSystem,
 } from './quantities.ts';
+import { sentence } from './text.ts';
 
 /** The three ways a measure's CFM50 reduction is estimated (core/measures.ts). */
 export type EstimateMethod = 'byUnits' | 'direct' | 'share';
@@ -128,13 +129,6 @@ export function unitOfField(key: NumberKey, context: FieldContext): string {
   return SPECS[key].unit(context);
 }
 
-/** Text typed as a number: separators allowed ("1,850"), nothing else. */
-export function parseNumber(text: string): number | null {
-  const cleaned = text.trim().replace(/,/g, '');
-  if (cleaned === '' || !/^[-+]?(\d+\.?\d*|\.\d+)$/.test(cleaned)) return null;
-  return Number(cleaned);
-}
-
 /** A stored value as a box shows it: in the shown unit, at most two decimals, no separators. */
 export function boxText(key: NumberKey, stored: number, context: FieldContext): string {
   return String(Math.round(SPECS[key].toShown(stored, context) * 100) / 100);
@@ -201,12 +195,6 @@ export function messageInShownUnits(
     const values = figures.split(' / ').map(Number);
     return `${words} ${valuesInWords(key, values, context)}`;
   });
-}
-
-function sentence(text: string): string {
-  const trimmedText = text.trim();
-  const capital = trimmedText.charAt(0).toUpperCase() + trimmedText.slice(1);
-  return /[.!?]$/.test(capital) ? capital : `${capital}.`;
 }
 
 /** The field a request path names, or null when the path is not one of the form's. */

@@ -8,9 +8,9 @@
  */
 import { cfm50FromElaIn2 } from '../core/leakage/areas.ts';
 import type { LeakLocation, Measure, MeasureStatus, Range } from '../core/schema.ts';
+import { parseNumber } from './text.ts';
 import {
   boxText,
-  parseNumber,
   RANGE_KEYS,
   storedOfTyped,
   type EstimateMethod,

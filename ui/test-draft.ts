@@ -5,7 +5,7 @@
  * its own; the store (tests.add) still has the last word.
  */
 import type { LeakageTestKind, OtherLeakageTest } from '../core/schema.ts';
-import { parseNumber } from './data-edit.ts';
+import { parseNumber } from './text.ts';
 import { storedValue, type UnitSystem } from './quantities.ts';
 
 export type TestMethod = 'onePoint' | 'multipoint';

@@ -13,13 +13,8 @@ import {
   SITE_SAFETY_FIELDS,
   type DataFieldSpec,
 } from '../../ui/data-fields.ts';
-import {
-  draftPart,
-  listWords,
-  messageInShownUnits,
-  parseNumber,
-  storedText,
-} from '../../ui/data-edit.ts';
+import { draftPart, listWords, messageInShownUnits, storedText } from '../../ui/data-edit.ts';
+import { parseNumber, sentence } from '../../ui/text.ts';
 
 const PRICE_FIELDS = priceFields((fuel) => (fuel === 'electricity' ? 'kWh' : 'therm'));
 const ALL = [
@@ -235,6 +230,13 @@ describe('refusals in the units the field is typed in', () => {
     expect(messageInShownUnits('expected text, got 3', spec('climate-name'), 'SI')).toBe(
       'expected text, got 3',
     );
+  });
+});
+
+describe('sentences from the store’s words', () => {
+  it('capitalizes and ends with a full stop, once', () => {
+    expect(sentence(' expected a number ')).toBe('Expected a number.');
+    expect(sentence('Done!')).toBe('Done!');
   });
 });
 

@@ -9,6 +9,7 @@ import { draftPart, listWords, messageInShownUnits, storedText } from '../data-e
 import { partOf, requestPath, type DataFieldSpec } from '../data-fields.ts';
 import type { SaveStatus } from './save-status.ts';
 import type { WorkspaceState } from './workspace.svelte.ts';
+import { capitalized } from '../text.ts';
 
 /** The label a part's save is reported under. */
 const PART_LABELS: Readonly<Record<string, string>> = {
@@ -18,10 +19,6 @@ const PART_LABELS: Readonly<Record<string, string>> = {
   cooling: 'Cooling',
   economics: 'Analysis',
 };
-
-function capitalized(text: string): string {
-  return text.charAt(0).toUpperCase() + text.slice(1);
-}
 
 export class DataEditor {
   #workspace: WorkspaceState;

@@ -8,6 +8,7 @@ import { call } from '../bridge.ts';
 import type { ChannelRequest } from '../../electron/channels.ts';
 import { HOUSE_FIELDS, type HouseFieldKey } from '../house-fields.ts';
 import { storedValue, type UnitSystem } from '../quantities.ts';
+import { parseNumber, sentence } from '../text.ts';
 
 type HomeInput = ChannelRequest<'homes.create'>;
 
@@ -56,18 +57,6 @@ function emptyDraft(): Record<NewHomeKey, string> {
     ...house,
     notes: '',
   };
-}
-
-/** Text typed as a number: separators allowed ("1,850"), nothing else. */
-function parseNumber(text: string): number | null {
-  const cleaned = text.trim().replace(/,/g, '');
-  if (cleaned === '' || !/^[-+]?(\d+\.?\d*|\.\d+)$/.test(cleaned)) return null;
-  return Number(cleaned);
-}
-
-function sentence(text: string): string {
-  const upper = text.charAt(0).toUpperCase() + text.slice(1);
-  return /[.!?]$/.test(upper) ? upper : `${upper}.`;
 }
 
 /** The form's box a problem of a homes.create reply is about, if any. */

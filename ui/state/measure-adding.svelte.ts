@@ -11,6 +11,7 @@ import { byUnitsEstimateCfm50, roundedRange, valueOfField } from '../measure-for
 import { storedWork } from '../quantities.ts';
 import { MeasureDraft, type ActionStatus } from './measure-draft.svelte.ts';
 import type { WorkspaceState } from './workspace.svelte.ts';
+import { sentence } from '../text.ts';
 
 /**
  * Labour rate used when the project's settings cannot be read. An invented demo figure, not a
@@ -35,12 +36,6 @@ export function nextMeasureId(typeId: string, taken: readonly string[]): string 
 /** Two decimals, as a starting value in a box (cents, hundredths of an hour). */
 function hundredths(value: number): number {
   return Math.round(value * 100) / 100;
-}
-
-/** A store's words as a sentence. */
-export function sentence(text: string): string {
-  const capital = text.charAt(0).toUpperCase() + text.slice(1);
-  return /[.!?]$/.test(capital) ? capital : `${capital}.`;
 }
 
 export interface AddingHost {

@@ -11,7 +11,8 @@ import type { MeasureReport } from '../../core/report.ts';
 import type { Measure, MeasureStatus } from '../../core/schema.ts';
 import type { FieldContext } from '../measure-fields.ts';
 import { draftOfMeasure, sameMeasure } from '../measure-form.ts';
-import { NewMeasure, sentence } from './measure-adding.svelte.ts';
+import { NewMeasure } from './measure-adding.svelte.ts';
+import { sentence } from '../text.ts';
 import { MeasureDraft, type ActionStatus } from './measure-draft.svelte.ts';
 import type { HomeRecord, WorkspaceState } from './workspace.svelte.ts';
 

@@ -7,6 +7,7 @@
 import type { ChannelResponse } from '../../electron/channels.ts';
 import { call } from '../bridge.ts';
 import type { SaveStatus } from './save-status.ts';
+import { parseNumber } from '../text.ts';
 
 export type Settings = ChannelResponse<'settings.get'>;
 export type NumberSettingKey =
@@ -59,13 +60,6 @@ export const NUMBER_SETTINGS: readonly NumberSettingSpec[] = [
     emptyIsUnknown: true,
   },
 ];
-
-/** Text typed as a number: separators allowed ("1,850"), nothing else. */
-function parseNumber(text: string): number | null {
-  const cleaned = text.trim().replace(/,/g, '');
-  if (cleaned === '' || !/^[-+]?(\d+\.?\d*|\.\d+)$/.test(cleaned)) return null;
-  return Number(cleaned);
-}
 
 /** A stored number in the box's scale, without float noise (0.035 × 100 → "3.5"). */
 function shownText(value: number, scale: number): string {

@@ -5,6 +5,7 @@
  */
 import type { MeasureType } from '../../core/measure-library/types.ts';
 import type { LibraryState, TypeEdit } from './library.svelte.ts';
+import { parseNumber } from '../text.ts';
 
 export const EDIT_BOXES = [
   { key: 'life', label: 'Life', unit: 'years', path: 'defaultLifeYears' },
@@ -42,12 +43,6 @@ export function plainNumber(value: number): string {
 export function figureText(value: number): string {
   if (Math.abs(value) >= 100) return String(Math.round(value));
   return String(Number(value.toPrecision(3)));
-}
-
-function parseNumber(text: string): number | null {
-  const cleaned = text.trim().replace(/,/g, '');
-  if (cleaned === '' || !/^[-+]?(\d+\.?\d*|\.\d+)$/.test(cleaned)) return null;
-  return Number(cleaned);
 }
 
 function boxTexts(type: MeasureType): Record<BoxKey, string> {
