@@ -116,7 +116,9 @@ export class DataEditor {
       if (problem === undefined) continue;
       const why = capitalized(`${messageInShownUnits(problem.message, field, units)}.`);
       this.errors[field.id] = why;
-      if (field.id === spec.id || ownWhy === null) ownWhy = `${field.label}: ${why}`;
+      // The status line names the field typed in; another field of its part is named here.
+      if (field.id === spec.id) ownWhy = why;
+      else ownWhy ??= `${field.label}: ${why}`;
     }
     if (ownWhy === null) {
       this.errors[spec.id] = capitalized(outcome.message);
