@@ -3,7 +3,8 @@
  * heating and prices, a multipoint blower-door test and its fit, five measures from the
  * library, the ranked plan and its charts, a fuel price changed and the savings following it,
  * SI and back, the proposal printed to PDF with the plan's totals in its text, and a reload
- * that finds everything as it was. Then the same path by keyboard alone.
+ * that finds everything as it was, and the command line printing the same figures for the
+ * same home. Then the same path by keyboard alone.
  *
  * Every expected figure comes from the project's store or from the core's evaluation of
  * what the store holds (the plan.evaluate channel), never from the screens' own code.
@@ -12,12 +13,15 @@
  * log-log regression in test/reference; unit factors are NIST SP 811 (2008) appendix B;
  * axe-core's default rules (WCAG 2.x A and AA); WCAG 2.2 SC 2.1.1 Keyboard (from memory).
  */
+import { execFileSync } from 'node:child_process';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formatNumber, formatUsd } from '../../core/format.ts';
 import { fitMultipointTest } from '../../core/leakage.ts';
 import type { EvaluationReport } from '../../core/report.ts';
+import { exportHomeFile } from '../../db/home-file.ts';
 import { getHome, listHomes } from '../../db/repositories/homes.ts';
 import { listLeakageTests } from '../../db/repositories/leakage-tests.ts';
 import { listMeasures } from '../../db/repositories/measures.ts';
@@ -27,6 +31,7 @@ import { holdsFigure, paintedPixels, pdfPages } from './_lib/drawn.ts';
 import { focusRingShown, tabTo } from './_lib/keyboard.ts';
 import type { WatchedPage } from './_lib/page-watch.ts';
 import { SCREENSHOTS, SETUP_TIMEOUT_MS, startRig, type Rig } from './_lib/rig.ts';
+import { REPO_ROOT } from './_lib/ui-build.ts';
 
 const PATH_TIMEOUT_MS = 240_000;
 
@@ -335,6 +340,26 @@ describe('the main path, from an empty home to a printed proposal', () => {
         );
       }
       expect(evaluated(homeId)).toEqual(after);
+
+      // ---- The command line prints the same figures for the same home.
+      const homeFile = rig.project.store.read((read) => exportHomeFile(read, homeId));
+      const filePath = join(SCREENSHOTS, 'main-path-home.json');
+      writeFileSync(filePath, JSON.stringify(homeFile));
+      const cli = execFileSync(process.execPath, ['electron/sealwork.js', 'evaluate', filePath], {
+        cwd: REPO_ROOT,
+        encoding: 'utf8',
+      });
+      for (const figure of [
+        formatUsd(after.package.costUsd, { cents: true }),
+        formatUsd(after.package.npvUsd, { cents: true }),
+        formatUsd(after.package.annualSavingsUsd),
+        ...after.measures.map((measure) => formatUsd(measure.annualSavings.usd)),
+      ]) {
+        expect(cli, `${figure} in the command line's text`).toContain(figure);
+      }
+      const planText = (await page.locator('#package-heading ~ dl').textContent()) ?? '';
+      expect(planText).toContain(formatUsd(after.package.costUsd, { cents: true }));
+      expect(planText).toContain(formatUsd(after.package.npvUsd, { cents: true }));
       expectHealthy(watched);
       await watched.close();
     },
