@@ -3,11 +3,7 @@
  * make, its ventilation need and its worth over a range of estimates.
  */
 import type { AnnualEnergy } from './energy.ts';
-import {
-  loanMonthlyPaymentRoundedUsd,
-  savingsToInvestmentRatio,
-  simplePaybackYears,
-} from './economics/index.ts';
+import { savingsToInvestmentRatio, simplePaybackYears } from './economics/index.ts';
 import { totalCfm50, type HomeModel } from './home-model.ts';
 import type { PreparedMeasure } from './measures.ts';
 import { Decimal, roundToCents, sumUsd } from './money.ts';
@@ -19,6 +15,7 @@ import {
   type PlanState,
   type StepOutcome,
 } from './plan/step.ts';
+import { financingOf, type PlanFinancing } from './plan/financing.ts';
 import { ventilationAfterPackage, type VentilationOutcome } from './plan/ventilation-fan.ts';
 import { worthOfStep, type MeasureWorth } from './plan/worth.ts';
 import type { PriceBook } from './plan/prices.ts';
@@ -61,17 +58,6 @@ export interface PlanPackage {
   simplePaybackYears: Decimal | null;
   ventilation: VentilationOutcome;
   financing: PlanFinancing | null;
-}
-
-export interface PlanFinancing {
-  principalUsd: Decimal;
-  aprNominal: number;
-  months: number;
-  monthlyPaymentUsd: Decimal;
-  /** First year's savings per month, to the cent. */
-  monthlySavingsUsd: Decimal;
-  /** Savings less payment, per month in the first year. */
-  netMonthlyUsd: Decimal;
 }
 
 export interface PlanResult {
@@ -250,31 +236,15 @@ function buildPackage(options: {
       firstYearSavingsUsd: annualSavingsUsd,
     }),
     ventilation,
-    financing: financingOf(model, costUsd, annualSavingsUsd),
-  };
-}
-
-function financingOf(
-  model: HomeModel,
-  costUsd: Decimal,
-  annualSavingsUsd: Decimal,
-): PlanFinancing | null {
-  const terms = model.home.financing;
-  if (!terms || costUsd.isZero()) return null;
-  const monthlyPaymentUsd = loanMonthlyPaymentRoundedUsd({
-    principalUsd: costUsd,
-    aprNominal: terms.aprNominal,
-    months: terms.months,
-  });
-  const monthlySavingsUsd = roundToCents(annualSavingsUsd.div(12));
-  return {
-    principalUsd: costUsd,
-    aprNominal: terms.aprNominal,
-    months: terms.months,
-    monthlyPaymentUsd,
-    monthlySavingsUsd,
-    netMonthlyUsd: monthlySavingsUsd.minus(monthlyPaymentUsd),
+    financing: financingOf({
+      terms: model.home.financing,
+      costUsd,
+      annualSavingsUsd,
+      prices: options.prices,
+      steps: included.map((entry) => entry.step),
+    }),
   };
 }
 
 export { totalCfm50 };
+export type { PlanFinancing };

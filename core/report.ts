@@ -124,6 +124,10 @@ export interface EvaluationReport {
       monthlyPaymentUsd: number;
       monthlySavingsUsd: number;
       netMonthlyUsd: number;
+      totalPaidUsd: number;
+      firstYearNetUsd: number;
+      lifetimeSavingsUsd: number;
+      lifetimeNetUsd: number;
     } | null;
   };
   cautions: Caution[];
@@ -266,6 +270,10 @@ export function buildReport(options: {
         monthlyPaymentUsd: money(pkg.financing.monthlyPaymentUsd),
         monthlySavingsUsd: money(pkg.financing.monthlySavingsUsd),
         netMonthlyUsd: money(pkg.financing.netMonthlyUsd),
+        totalPaidUsd: money(pkg.financing.totalPaidUsd),
+        firstYearNetUsd: money(pkg.financing.firstYearNetUsd),
+        lifetimeSavingsUsd: money(pkg.financing.lifetimeSavingsUsd),
+        lifetimeNetUsd: money(pkg.financing.lifetimeNetUsd),
       },
     },
     cautions: evaluation.cautions,

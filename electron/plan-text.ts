@@ -135,6 +135,9 @@ export function planText(report: EvaluationReport): string {
     lines.push(
       `Financing   ${formatUsd(loan.monthlyPaymentUsd, { cents: true })}/month for ${loan.months} months against ` +
         `${formatUsd(loan.monthlySavingsUsd, { cents: true })}/month saved`,
+      `            first year ${formatUsd(loan.firstYearNetUsd, { cents: true })} after payments; ` +
+        `${formatUsd(loan.totalPaidUsd, { cents: true })} paid in all; ` +
+        `${formatUsd(loan.lifetimeNetUsd, { cents: true })} ahead over the measures' lives`,
     );
   }
   if (report.cautions.length > 0) {

@@ -348,6 +348,23 @@ export const ANALYSIS_FIELDS: readonly DataFieldSpec[] = [
   },
   {
     kind: 'number',
+    id: 'analysis-loan-apr',
+    path: ['financing', 'aprNominal'],
+    label: 'Loan rate (APR)',
+    unit: '% a year',
+    percent: true,
+    removesGroupWhenBlank: true,
+    hint: 'For a package paid with a loan; blank for none',
+  },
+  {
+    kind: 'number',
+    id: 'analysis-loan-months',
+    path: ['financing', 'months'],
+    label: 'Loan term',
+    unit: 'months',
+  },
+  {
+    kind: 'number',
     id: 'analysis-floor',
     path: ['leakageFloorCfm50'],
     label: 'Leakage floor',

@@ -360,6 +360,35 @@ describe('the main path, from an empty home to a printed proposal', () => {
       const planText = (await page.locator('#package-heading ~ dl').textContent()) ?? '';
       expect(planText).toContain(formatUsd(after.package.costUsd, { cents: true }));
       expect(planText).toContain(formatUsd(after.package.npvUsd, { cents: true }));
+
+      // ---- A loan: its rate and term in the Analysis panel, the payment against the savings.
+      await goToSection(page, 'House');
+      await enter(page, 'analysis-loan-apr', '6.9');
+      await enter(page, 'analysis-loan-months', '60');
+      await until(
+        () => rig.project.store.read((read) => getHome(read, homeId)).data.financing,
+        (terms) => terms?.months === 60,
+        'the loan terms',
+      );
+      expect(rig.project.store.read((read) => getHome(read, homeId)).data.financing).toEqual({
+        aprNominal: 0.069,
+        months: 60,
+      });
+      const financed = evaluated(homeId).package.financing;
+      if (financed === null) throw new Error('the financed home has no loan figures');
+      await goToSection(page, 'Plan');
+      const loanPanel = page.locator('section[aria-labelledby="loan-heading"]');
+      for (const amount of [
+        financed.monthlyPaymentUsd,
+        financed.monthlySavingsUsd,
+        financed.firstYearNetUsd,
+        financed.totalPaidUsd,
+        financed.lifetimeNetUsd,
+      ]) {
+        await expect
+          .poll(() => loanPanel.textContent())
+          .toContain(formatUsd(amount, { cents: true }));
+      }
       expectHealthy(watched);
       await watched.close();
     },

@@ -18,6 +18,7 @@ const PART_LABELS: Readonly<Record<string, string>> = {
   heating: 'Heating',
   cooling: 'Cooling',
   economics: 'Analysis',
+  financing: 'Loan',
 };
 
 export class DataEditor {
