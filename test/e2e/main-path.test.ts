@@ -389,6 +389,16 @@ describe('the main path, from an empty home to a printed proposal', () => {
           .poll(() => loanPanel.textContent())
           .toContain(formatUsd(amount, { cents: true }));
       }
+      // The proposal says the same to the family.
+      await goToSection(page, 'Proposal');
+      const loanPart = page.locator('section[aria-labelledby="proposal-loan"]');
+      await expect
+        .poll(() => loanPart.textContent())
+        .toContain(formatUsd(financed.monthlyPaymentUsd, { cents: true }));
+      expect(await loanPart.textContent()).toContain(
+        formatUsd(financed.lifetimeNetUsd, { cents: true }),
+      );
+      await expectAxeClean(page, 'the Proposal with a loan');
       expectHealthy(watched);
       await watched.close();
     },
