@@ -1,0 +1,109 @@
+/**
+ * How long the exact best-package search takes over 24 energy measures: a demo home (the
+ * invented scenario's) with measures of the library's types added until it has 24, under a
+ * budget of half its energy measures' cost and with no budget, for each objective. Target:
+ * under 1 s each. Prints the median time, its ratio to the target and the packages the search
+ * valued against the 2^24 a full enumeration would; asserts nothing.
+ *
+ * The search is bounded for the methods whose infiltration is linear in CFM50 (here the demo
+ * home's lblBasic); an aim2 home is searched with the budget cuts only, so a last line times a
+ * 16-measure aim2 home for scale. Run: npx tsx test/bench/best-package.bench.ts
+ */
+import { performance } from 'node:perf_hooks';
+import { evaluateHome } from '../../core/evaluate.ts';
+import { MEASURE_LIBRARY } from '../../core/measure-library.ts';
+import { bestPackage, type BestPackageOptions } from '../../core/plan/best-package.ts';
+import type { HomeFileInput } from '../../core/schema.ts';
+import { JUNIPER_HOLLOW } from '../../db/demo/homes/juniper-hollow.ts';
+import { LARCH_TERRACE } from '../../db/demo/homes/larch-terrace.ts';
+
+const TARGET_MS = 1000;
+const RUNS = 3;
+/** An invented labour rate for the bench home's added measures. */
+const BENCH_LABOR_RATE_USD_PER_HOUR = 58;
+
+/** A demo home with its measures made planned and library measures added up to `count`. */
+function benchHome(base: HomeFileInput, count: number): HomeFileInput {
+  const measures: HomeFileInput['measures'] = base.measures.map((measure) => ({
+    ...measure,
+    status: 'planned',
+    cost: { ...measure.cost, healthAndSafety: false },
+  }));
+  for (let index = 0; measures.length < count; index += 1) {
+    const type = MEASURE_LIBRARY[index % MEASURE_LIBRARY.length];
+    if (type === undefined) break;
+    const units = 2 + (index % 5);
+    measures.push({
+      id: `bench-${index + 1}`,
+      type: type.id,
+      byUnits: { units },
+      cost: {
+        materialsUsd: Math.round(type.defaultCost.materialsUsdPerUnit * units * 100) / 100,
+        laborHours: Math.round(type.defaultCost.laborHoursPerUnit * units * 100) / 100,
+        laborRateUsdPerHour: BENCH_LABOR_RATE_USD_PER_HOUR,
+      },
+    });
+  }
+  return {
+    ...base,
+    demo: false,
+    name: `Bench home: ${count} measures`,
+    measures: measures.slice(0, count),
+  };
+}
+
+function median(values: readonly number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.floor(sorted.length / 2)] ?? NaN;
+}
+
+function timeSearch(label: string, home: HomeFileInput, options: BestPackageOptions): void {
+  const evaluation = evaluateHome(home);
+  const count = evaluation.plan.entries.length;
+  const samples: number[] = [];
+  let result = bestPackage(evaluation, options);
+  for (let run = 0; run < RUNS; run += 1) {
+    const started = performance.now();
+    result = bestPackage(evaluation, options);
+    samples.push(performance.now() - started);
+  }
+  const ms = median(samples);
+  console.log(
+    `${label} (${count} measures, ${evaluation.home.infiltrationMethod}): median ${ms.toFixed(1)} ms over ${RUNS} runs; ` +
+      `target < ${TARGET_MS} ms; ratio ${(ms / TARGET_MS).toFixed(3)} of target; ` +
+      `${result.nodesVisited} packages valued of 2^${count} = ${2 ** count} ` +
+      `(${((result.nodesVisited / 2 ** count) * 100).toPrecision(3)} %); ` +
+      `chose ${result.measureIds.length} measures, NPV ${result.npvUsd.toFixed(2)} USD`,
+  );
+}
+
+const home24 = benchHome(JUNIPER_HOLLOW, 24);
+const energyCostUsd = evaluateHome(home24)
+  .plan.entries.map((entry) => entry.step.measure.cost.totalUsdFloat)
+  .reduce((total, cost) => total + cost, 0);
+const halfBudget = Math.round(energyCostUsd * 50) / 100;
+
+timeSearch(`best NPV, budget ${halfBudget} USD`, home24, { budgetUsd: halfBudget });
+timeSearch('best NPV, no budget', home24, { budgetUsd: Infinity });
+timeSearch(`best savings, budget ${halfBudget} USD, package SIR ≥ 1`, home24, {
+  budgetUsd: halfBudget,
+  objective: 'savings',
+  packageSirAtLeastOne: true,
+});
+timeSearch('best savings, no budget, every SIR ≥ 1', home24, {
+  budgetUsd: Infinity,
+  objective: 'savings',
+  everyMeasureSirAtLeastOne: true,
+});
+timeSearch(`best SIR, budget ${halfBudget} USD`, home24, {
+  budgetUsd: halfBudget,
+  objective: 'sir',
+});
+timeSearch('aim2 for scale, best NPV, budget a third', benchHome(LARCH_TERRACE, 16), {
+  budgetUsd:
+    Math.round(
+      evaluateHome(benchHome(LARCH_TERRACE, 16))
+        .plan.entries.map((entry) => entry.step.measure.cost.totalUsdFloat)
+        .reduce((total, cost) => total + cost, 0) * 33,
+    ) / 100,
+});

@@ -1,0 +1,341 @@
+/**
+ * The best package within a budget (core/plan/best-package.ts) against brute force: every
+ * subset of a home's energy measures valued by a plain replay with the core's step, worth and
+ * ventilation functions (test/_lib/package-brute-force.ts), the best picked by the documented
+ * rule. Homes are generated (test/_lib/home-arbitrary.ts, fixed seed): every infiltration
+ * method, fuels, floors, fans, health-and-safety and declined measures, 1–14 measures.
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
+import {
+  BOUNDED_METHODS,
+  bestPackage,
+  fanThresholdCfm50,
+  usefulFloorCfm50,
+  packageFigures,
+  type BestPackageOptions,
+} from '../../core/plan/best-package.ts';
+import { totalCfm50 } from '../../core/home-model.ts';
+import { buildPriceBook } from '../../core/plan/prices.ts';
+import { applyMeasure, stateAfter, stateOf } from '../../core/plan/step.ts';
+import { worthOfStep } from '../../core/plan/worth.ts';
+import type { HomeFileInput } from '../../core/schema.ts';
+import { expectInputError } from '../_lib/expect-input-error.ts';
+import { homeArbitrary } from '../_lib/home-arbitrary.ts';
+import { validBaseHome } from '../_lib/base-home.ts';
+import {
+  bestByBruteForce,
+  everyPackage,
+  measuresInPlanOrder,
+  type BruteForceQuery,
+} from '../_lib/package-brute-force.ts';
+
+const SEED = 20261201;
+const HOMES = 200;
+
+/**
+ * Generated homes of 1–14 measures with a budget fraction and a query kind each. The
+ * generator marks about half its measures health and safety and a third declined; here most
+ * are made energy measures again (all of them in half the homes), so the search has up to 14
+ * to choose from.
+ */
+const homes = fc.sample(
+  fc
+    .noBias(fc.integer({ min: 1, max: 14 }))
+    .chain((count) =>
+      fc.record({
+        home: homeArbitrary({ measureCount: { min: count, max: count } }),
+        kinds: fc.array(
+          fc.constantFrom('energy', 'energy', 'energy', 'energy', 'safety', 'declined'),
+          {
+            minLength: count,
+            maxLength: count,
+          },
+        ),
+        allEnergy: fc.boolean(),
+        budgetFraction: fc.constantFrom(0, 0.05, 0.2, 0.35, 0.5, 0.75, 1, 1.5),
+        kind: fc.integer({ min: 0, max: 3 }),
+      }),
+    )
+    .map(({ home, kinds, allEnergy, budgetFraction, kind }) => {
+      home.measures.forEach((measure, index) => {
+        const role = allEnergy ? 'energy' : (kinds[index] ?? 'energy');
+        measure.status = role === 'declined' ? 'declined' : 'planned';
+        measure.cost = { ...measure.cost, healthAndSafety: role === 'safety' };
+      });
+      return { home, budgetFraction, kind };
+    }),
+  { seed: SEED, numRuns: HOMES },
+);
+
+/** The queries asked of one home: a budget from its energy cost and constraints by kind. */
+function queriesFor(evaluation: Evaluation, budgetFraction: number, kind: number) {
+  const energyCost = measuresInPlanOrder(evaluation).energy.reduce(
+    (total, measure) => total + measure.cost.totalUsdFloat,
+    0,
+  );
+  const budgetUsd = Math.round(energyCost * budgetFraction * 100) / 100;
+  const all: BruteForceQuery[] = [
+    { budgetUsd, objective: 'npv', everyMeasureSirAtLeastOne: false, packageSirAtLeastOne: false },
+    {
+      budgetUsd: kind === 0 ? Infinity : budgetUsd,
+      objective: 'savings',
+      everyMeasureSirAtLeastOne: false,
+      packageSirAtLeastOne: true,
+    },
+    {
+      budgetUsd,
+      objective: kind === 1 ? 'sir' : 'npv',
+      everyMeasureSirAtLeastOne: true,
+      packageSirAtLeastOne: kind === 2,
+    },
+    {
+      budgetUsd,
+      objective: 'savings',
+      everyMeasureSirAtLeastOne: true,
+      packageSirAtLeastOne: false,
+    },
+  ];
+  return all;
+}
+
+function optionsOf(query: BruteForceQuery): BestPackageOptions {
+  return { ...query };
+}
+
+describe('best package: equals brute force', () => {
+  it(`on ${HOMES} generated homes of up to 14 measures, four queries each`, () => {
+    let compared = 0;
+    const counts: number[] = [];
+    const methods = new Set<string>();
+    for (const { home, budgetFraction, kind } of homes) {
+      const evaluation = evaluateHome(home);
+      methods.add(home.infiltrationMethod);
+      const packages = everyPackage(evaluation);
+      counts.push(measuresInPlanOrder(evaluation).energy.length);
+      expect(packages).toHaveLength(2 ** measuresInPlanOrder(evaluation).energy.length);
+      for (const query of queriesFor(evaluation, budgetFraction, kind)) {
+        const expected = bestByBruteForce(packages, query);
+        const found = bestPackage(evaluation, optionsOf(query));
+        const context = `${home.infiltrationMethod}, ${JSON.stringify(query)}`;
+        expect(found.measureIds, context).toEqual(expected.measureIds);
+        expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
+        expect(found.annualSavingsUsd.toFixed(2), context).toBe(
+          expected.annualSavingsUsd.toFixed(2),
+        );
+        expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
+        expect(found.sir?.toString() ?? null, context).toBe(expected.sir?.toString() ?? null);
+        // Respects the budget; the energy measures' cost is what it covers.
+        expect(found.budgetCostUsd.lte(query.budgetUsd), context).toBe(true);
+        expect(found.nodesVisited).toBeLessThanOrEqual(packages.length);
+        expect(found.proven).toBe(true);
+        compared += 1;
+      }
+    }
+    expect(compared).toBe(4 * HOMES);
+    // The homes do reach the stated size: a good number choose among 12 measures or more.
+    expect(Math.max(...counts)).toBe(14);
+    expect(counts.filter((count) => count >= 12).length).toBeGreaterThanOrEqual(15);
+    expect([...methods].sort()).toEqual(['aim2', 'ashrae622', 'lblBasic', 'nFactor']);
+  }, 120_000);
+});
+
+describe('best package: constraints, budget and ties', () => {
+  it('honours every-measure SIR ≥ 1 and package SIR ≥ 1 (checked with the core worth)', () => {
+    for (const { home } of homes.slice(0, 60)) {
+      const evaluation = evaluateHome(home);
+      const found = bestPackage(evaluation, {
+        budgetUsd: Infinity,
+        objective: 'savings',
+        everyMeasureSirAtLeastOne: true,
+        packageSirAtLeastOne: true,
+      });
+      // Replayed here step by step with the core's own step and worth.
+      const prices = buildPriceBook(evaluation.home);
+      const { healthAndSafety, energy } = measuresInPlanOrder(evaluation);
+      let state = stateOf(evaluation.model, evaluation.model.testIn);
+      let pv = 0;
+      let cost = 0;
+      for (const measure of [...healthAndSafety, ...energy]) {
+        if (!found.measureIds.includes(measure.id)) continue;
+        const outcome = applyMeasure(evaluation.model, state, measure);
+        const worth = worthOfStep(prices, outcome);
+        if (!measure.cost.healthAndSafety) {
+          if (worth.sir !== null) expect(worth.sir.gte(1)).toBe(true);
+          pv += worth.pvSavingsUsd.toNumber();
+          cost += measure.cost.totalUsdFloat;
+        }
+        state = stateAfter(outcome);
+      }
+      if (cost > 0) expect(pv / cost).toBeGreaterThanOrEqual(1 - 1e-12);
+    }
+  });
+
+  it('gives the package of health-and-safety work alone when no energy measure fits', () => {
+    const home = validBaseHome() as unknown as HomeFileInput;
+    const first = home.measures[0];
+    if (first) first.cost = { ...first.cost, healthAndSafety: true };
+    const evaluation = evaluateHome(home);
+    const cheapest = Math.min(
+      ...measuresInPlanOrder(evaluation).energy.map((measure) => measure.cost.totalUsdFloat),
+    );
+    for (const budgetUsd of [0, cheapest - 0.01]) {
+      const found = bestPackage(evaluation, { budgetUsd });
+      expect(found.measureIds).toEqual(['m1']);
+      expect(found.healthAndSafetyMeasureIds).toEqual(['m1']);
+      expect(found.budgetCostUsd.toNumber()).toBe(0);
+      expect(found.sir).toBeNull();
+    }
+    // One cent more and the cheapest fits.
+    const fits = bestPackage(evaluation, { budgetUsd: cheapest, objective: 'savings' });
+    expect(fits.measureIds.length).toBe(2);
+    expect(fits.budgetCostUsd.toNumber()).toBe(cheapest);
+  });
+
+  it('gives the empty package when a home has no energy measure that fits', () => {
+    const evaluation = evaluateHome(validBaseHome());
+    const found = bestPackage(evaluation, { budgetUsd: 0, objective: 'sir' });
+    expect(found.measureIds).toEqual([]);
+    expect(found.budgetCostUsd.toNumber()).toBe(0);
+    expect(found.annualSavingsUsd.toNumber()).toBe(0);
+    // Whatever it costs is the fan the house needs as it stands (health and safety).
+    expect(found.costUsd.eq(found.healthAndSafetyCostUsd)).toBe(true);
+    expect(found.npvUsd.eq(found.costUsd.neg())).toBe(true);
+  });
+
+  it('breaks ties the same way every time: the earlier of two identical measures', () => {
+    const home = validBaseHome() as unknown as HomeFileInput;
+    const twin = home.measures[0];
+    if (!twin) throw new Error('base home has measures');
+    home.measures = [
+      {
+        ...twin,
+        id: 'a',
+        type: 'attic-top-plates',
+        reductionCfm50: { low: 50, likely: 80, high: 90 },
+      },
+      {
+        ...twin,
+        id: 'b',
+        type: 'attic-top-plates',
+        reductionCfm50: { low: 50, likely: 80, high: 90 },
+      },
+    ];
+    const evaluation = evaluateHome(home);
+    const order = measuresInPlanOrder(evaluation).energy.map((measure) => measure.id);
+    const packages = everyPackage(evaluation);
+    // Budget for one: both single packages score the same; the first in plan order wins.
+    const budget = { budgetUsd: twin.cost.materialsUsd + 400, objective: 'savings' as const };
+    const one = bestPackage(evaluation, budget);
+    const again = bestPackage(evaluation, budget);
+    expect(one.measureIds).toEqual(again.measureIds);
+    const single = packages.filter((entry) => entry.positions.length === 1);
+    expect(single[0]?.npvUsd.eq(single[1]?.npvUsd ?? 0)).toBe(true);
+    expect(one.measureIds).toEqual([order[0]]);
+  });
+
+  it('values the plan’s own package exactly as the plan does', () => {
+    for (const { home } of homes.slice(0, 80)) {
+      const evaluation = evaluateHome(home);
+      const planned = evaluation.plan.package;
+      const energyIds = evaluation.plan.entries
+        .filter((entry) => entry.included && !entry.step.measure.cost.healthAndSafety)
+        .map((entry) => entry.step.measure.id);
+      const figures = packageFigures(evaluation, energyIds);
+      expect(figures.measureIds).toEqual(planned.measureIds);
+      expect(figures.npvUsd.eq(planned.npvUsd)).toBe(true);
+      expect(figures.costUsd.eq(planned.costUsd)).toBe(true);
+      expect(figures.annualSavingsUsd.eq(planned.annualSavingsUsd)).toBe(true);
+      expect(figures.sir?.toString() ?? null).toBe(planned.sir?.toString() ?? null);
+    }
+  });
+
+  it('refuses a budget or objective out of range, naming the field', () => {
+    const evaluation = evaluateHome(validBaseHome());
+    expectInputError(() => bestPackage(evaluation, { budgetUsd: -1 }), 'budgetUsd', /at least 0/);
+    expectInputError(() => bestPackage(evaluation, { budgetUsd: NaN }), 'budgetUsd', /dollars/);
+    expectInputError(
+      () => bestPackage(evaluation, { budgetUsd: 10, objective: 'cheapest' as 'npv' }),
+      'objective',
+      /npv, savings, sir/,
+    );
+  });
+});
+
+describe('best package: the condition behind the bounds', () => {
+  it('a step never saves more than its bound at any earlier state (linear methods)', () => {
+    // The documented conditions: for nFactor, lblBasic and ashrae622, a measure applied at a
+    // tighter state Y saves no more (PV, each fuel priced ≥ 0) than the natural-infiltration
+    // saving, with no fan, of what it could remove at the earlier state X, times the natural
+    // share of the air at X; nothing below the useful floor; the fan threshold is where the
+    // 62.2 need passes the existing fans.
+    const random =
+      fc.sample(fc.integer({ min: 0, max: 2 ** 30 }), { seed: SEED, numRuns: 1 })[0] ?? 1;
+    let state32 = random >>> 0;
+    const next = () => {
+      state32 = (Math.imul(state32, 1_664_525) + 1_013_904_223) >>> 0;
+      return state32 / 2 ** 32;
+    };
+    let checked = 0;
+    let belowFloor = 0;
+    for (const { home } of homes) {
+      if (!BOUNDED_METHODS.includes(home.infiltrationMethod)) continue;
+      const evaluation = evaluateHome(home);
+      const { model } = evaluation;
+      const prices = buildPriceBook(evaluation.home);
+      const { energy } = measuresInPlanOrder(evaluation);
+      for (const measure of energy) {
+        let x = stateOf(model, model.testIn);
+        // X: after a random prefix of the other measures; Y: after some more.
+        const others = energy.filter((other) => other !== measure && next() < 0.5);
+        const split = Math.floor(next() * (others.length + 1));
+        others.slice(0, split).forEach((other) => (x = stateAfter(applyMeasure(model, x, other))));
+        let y = x;
+        others.slice(split).forEach((other) => (y = stateAfter(applyMeasure(model, y, other))));
+        const atX = applyMeasure(model, x, measure);
+        const removed = {
+          ...x.leakage,
+          [measure.location]: x.leakage[measure.location] - atX.appliedCfm50,
+        };
+        const before = model.energy(model.airflow(x.leakage));
+        const after = model.energy(model.airflow(removed));
+        // With an unbalanced fan, at most the natural share of the air at X can fall per
+        // CFM50 (hypot(F, q) grows at most q/hypot(F, q) as fast as q).
+        const flows = model.ventilatedAirflow(x.leakage);
+        const shareOf = (natural: number, combined: number) =>
+          flows.balanced || flows.fanCfm === 0 || combined === 0 ? 1 : natural / combined;
+        const bound = prices.presentValueFloat(
+          (before.heatingFuelUnits - after.heatingFuelUnits) *
+            prices.heating.usdPerUnitFloat *
+            shareOf(flows.infiltration.heatingCfm, flows.combined.heatingCfm),
+          (before.coolingKwh - after.coolingKwh) *
+            (prices.electricity?.usdPerUnitFloat ?? 0) *
+            shareOf(flows.infiltration.coolingCfm, flows.combined.coolingCfm),
+          measure.lifeYears,
+        );
+        const stepAtY = applyMeasure(model, y, measure);
+        const atY = worthOfStep(prices, stepAtY);
+        // Below the useful floor no step saves heating or cooling energy.
+        const cfm50AtY = totalCfm50(y.leakage);
+        if (cfm50AtY <= usefulFloorCfm50(model) && stepAtY.appliedCfm50 > 0) {
+          expect(stepAtY.saved.heatingFuelUnits).toBeLessThanOrEqual(1e-9);
+          expect(stepAtY.saved.coolingKwh).toBeLessThanOrEqual(1e-9);
+          belowFloor += 1;
+        }
+        // The fan threshold: the house needs a fan beyond its own exactly below it.
+        const threshold = fanThresholdCfm50(model);
+        const needsFan = model.ventilation(cfm50AtY).fanNeedCfm > model.existingFanCfm;
+        if (Math.abs(cfm50AtY - threshold) > 1e-3 * (1 + threshold)) {
+          expect(needsFan, `${cfm50AtY} vs threshold ${threshold}`).toBe(cfm50AtY < threshold);
+        }
+        expect(atY.pvSavingsUsd.toNumber()).toBeLessThanOrEqual(
+          bound + 0.005 + 1e-9 * Math.abs(bound),
+        );
+        checked += 1;
+      }
+    }
+    expect(checked).toBeGreaterThan(300);
+    expect(belowFloor).toBeGreaterThan(10);
+  });
+});
