@@ -6,7 +6,7 @@ import type { AnnualEnergy } from './energy.ts';
 import { savingsToInvestmentRatio, simplePaybackYears } from './economics/index.ts';
 import { totalCfm50, type HomeModel } from './home-model.ts';
 import type { PreparedMeasure } from './measures.ts';
-import { Decimal, roundToCents, sumUsd } from './money.ts';
+import { Decimal, sumUsd } from './money.ts';
 import { sequenceMeasures } from './plan/sequence.ts';
 import {
   applyMeasure,
