@@ -34,7 +34,7 @@ function reference(result: number | Error): number {
 const MASK = 0xffff_ffffn;
 const rotl = (x: bigint, k: bigint) => ((x << k) | (x >> (32n - k))) & MASK;
 
-/** xoshiro128** in BigInt, transcribed from the reference C code (uint32_t arithmetic). */
+/** xoshiro128** in BigInt, written again from the reference C code (uint32_t arithmetic). */
 function referenceXoshiro(state: [bigint, bigint, bigint, bigint], count: number): number[] {
   const s = [...state];
   const out: number[] = [];
@@ -86,7 +86,7 @@ const RANGES: Range[] = [
 ];
 
 describe('xoshiro128**', () => {
-  it('matches a BigInt transcription of the reference code, 2,000 outputs', () => {
+  it('matches a BigInt rewrite of the reference code, 2,000 outputs', () => {
     const state: [number, number, number, number] = [
       0x12345678, 0x9abcdef0, 0x0fedcba9, 0x87654321,
     ];
