@@ -27,6 +27,7 @@ export const CHANNEL_NAMES = [
   'library.shipped',
   'library.saveEdit',
   'library.reset',
+  'plan.options',
   'clients.list',
   'clients.create',
   'climates.list',

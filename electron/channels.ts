@@ -15,6 +15,7 @@ import { problemsFromZod } from '../core/_lib/zod-problems.ts';
 import { DbError } from '../db/errors.ts';
 import type { ChannelNameList } from './channel-names.ts';
 import type { Channel, ChannelContext } from './channels/_define.ts';
+import { choiceChannels } from './channels/choices.ts';
 import { clientSetAndSettingChannels } from './channels/clients-sets-and-settings.ts';
 import { fileAndPortfolioChannels } from './channels/files-and-portfolio.ts';
 import { homeChannels } from './channels/homes.ts';
@@ -28,6 +29,7 @@ export const channels = {
   ...homeChannels,
   ...testAndMeasureChannels,
   ...planAndLibraryChannels,
+  ...choiceChannels,
   ...clientSetAndSettingChannels,
   ...fileAndPortfolioChannels,
 } as const;

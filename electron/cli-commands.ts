@@ -61,6 +61,15 @@ export interface Parsed {
   demo: boolean;
   dryRun: boolean;
   results: boolean;
+  choices: ChoicesFlags;
+}
+
+/** What `evaluate` was asked beyond the plan; the channel checks each value and names it. */
+export interface ChoicesFlags {
+  draws: number | undefined;
+  seed: number | undefined;
+  distribution: string | undefined;
+  budget: { budgetUsd: number | null; objective?: string } | undefined;
 }
 
 /** The project a command works on, opened only when a channel first needs it. */
@@ -158,10 +167,12 @@ export async function runEvaluate(parsed: Parsed, output: CliOutput): Promise<nu
   const [target = ''] = expectPositionals(parsed, ['FILE|HOME_ID']);
   const homeId = homeIdOf(target);
   const file = homeId === null ? await readJsonFile(target) : undefined;
+  // The channel parses the flags' values (as it does any request) and names a bad one.
+  const choices = parsed.choices as Omit<ChannelRequest<'plan.evaluate'>, 'homeId'>;
   const report = await withProject(parsed, (context) =>
     homeId === null
-      ? ask(context, 'homeFile.evaluate', { file })
-      : ask(context, 'plan.evaluate', { homeId }),
+      ? ask(context, 'homeFile.evaluate', { file, ...choices })
+      : ask(context, 'plan.evaluate', { homeId, ...choices }),
   );
   printReports(output, [report], parsed.json, true);
   return EXIT_OK;

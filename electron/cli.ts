@@ -28,6 +28,7 @@ import {
   runPortfolio,
   runRestore,
   UsageError,
+  type ChoicesFlags,
   type CliOutput,
   type Parsed,
 } from './cli-commands.ts';
@@ -38,6 +39,10 @@ const USAGE = `Sealwork: plans air-sealing retrofits from a blower-door test.
 
 Usage:
   sealwork evaluate FILE|HOME_ID [--json]   evaluate a home file or a stored home
+      [--draws N] [--seed S] [--distribution pert|triangular]
+                                            and the package's range of outcomes (Monte Carlo)
+      [--budget USD|none] [--objective npv|savings|sir]
+                                            and the best package within a budget
   sealwork list [--json]                    the stored homes
   sealwork import FILE [--json]             store a home file as a new home; prints its id
   sealwork import FILE.csv [--json] [--dry-run]
@@ -75,6 +80,11 @@ function parse(argv: readonly string[]): Parsed {
       demo: { type: 'boolean' },
       'dry-run': { type: 'boolean' },
       results: { type: 'boolean' },
+      draws: { type: 'string' },
+      seed: { type: 'string' },
+      distribution: { type: 'string' },
+      budget: { type: 'string' },
+      objective: { type: 'string' },
       help: { type: 'boolean', short: 'h' },
     },
     allowPositionals: true,
@@ -89,6 +99,44 @@ function parse(argv: readonly string[]): Parsed {
     demo: values.demo === true,
     dryRun: values['dry-run'] === true,
     results: values.results === true,
+    choices: choicesOfFlags(values),
+  };
+}
+
+/** A flag's whole number, or a usage error naming the flag. */
+function wholeFlag(flag: string, text: string | undefined): number | undefined {
+  if (text === undefined) return undefined;
+  if (!/^\d+$/.test(text)) throw new UsageError(`--${flag} expects a whole number, got "${text}"`);
+  return Number(text);
+}
+
+/** The evaluate command's choices from its flags (each checked again by the channel). */
+function choicesOfFlags(values: {
+  draws?: string;
+  seed?: string;
+  distribution?: string;
+  budget?: string;
+  objective?: string;
+}): ChoicesFlags {
+  const { budget, objective, distribution } = values;
+  let budgetUsd: number | null | undefined;
+  if (budget !== undefined) {
+    if (budget === 'none') budgetUsd = null;
+    else if (/^\d+(\.\d{1,2})?$/.test(budget)) budgetUsd = Number(budget);
+    else
+      throw new UsageError(
+        `--budget expects dollars (e.g. 2500 or 2500.50) or "none", got "${budget}"`,
+      );
+  }
+  if (objective !== undefined && budgetUsd === undefined) {
+    throw new UsageError('--objective goes with --budget');
+  }
+  return {
+    draws: wholeFlag('draws', values.draws),
+    seed: wholeFlag('seed', values.seed),
+    distribution,
+    budget:
+      budgetUsd === undefined ? undefined : { budgetUsd, ...(objective ? { objective } : {}) },
   };
 }
 
@@ -99,6 +147,10 @@ function listProblems(output: CliOutput, heading: string, lines: readonly string
 }
 
 async function dispatch(parsed: Parsed, output: CliOutput): Promise<number> {
+  const choiceFlag = Object.entries(parsed.choices).find(([, value]) => value !== undefined);
+  if (choiceFlag && parsed.command !== 'evaluate') {
+    throw new UsageError(`--${choiceFlag[0]} is for the evaluate command`);
+  }
   switch (parsed.command) {
     case 'evaluate':
       return runEvaluate(parsed, output);

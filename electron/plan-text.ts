@@ -3,7 +3,7 @@
  * the cautions, in aligned columns.
  */
 import { formatNumber, formatRatio, formatUsd, formatYears } from '../core/format.ts';
-import type { EvaluationReport } from '../core/report.ts';
+import type { EvaluationWithChoices } from '../core/choices.ts';
 
 interface Column {
   title: string;
@@ -26,6 +26,48 @@ export function textTable(columns: readonly Column[], rows: readonly string[][])
       .trimEnd();
   const rule = widths.map((width) => '─'.repeat(width)).join('  ');
   return [line(columns.map((column) => column.title)), rule, ...rows.map(line)].join('\n');
+}
+
+/** "P10 a · P50 b · P90 c" of a spread, each formatted. */
+function percentiles(
+  spread: { p10: number; p50: number; p90: number },
+  format: (value: number) => string,
+): string {
+  return `P10 ${format(spread.p10)} · P50 ${format(spread.p50)} · P90 ${format(spread.p90)}`;
+}
+
+/** The range of outcomes and the best package within a budget, when asked for. */
+function choicesLines(report: EvaluationWithChoices): string[] {
+  const lines: string[] = [];
+  const run = report.uncertainty;
+  if (run) {
+    const usd = (value: number) => formatUsd(value);
+    lines.push(
+      `Range       ${formatNumber(run.draws)} draws (${run.distribution === 'pert' ? 'PERT' : 'triangular'}, seed ${run.seed}) over the estimates' ranges`,
+      `            CFM50 after ${percentiles(run.cfm50After, (value) => formatNumber(value))}`,
+      `            saves/yr    ${percentiles(run.annualSavingsUsd, usd)}`,
+      `            NPV         ${percentiles(run.npvUsd, usd)}`,
+    );
+    if (run.chanceSirAtLeastOne !== null) {
+      lines.push(
+        `            chance the package SIR is at least 1: ${formatNumber(run.chanceSirAtLeastOne * 100, 0)} %`,
+      );
+    }
+  }
+  const best = report.bestPackage;
+  if (best) {
+    const budget =
+      best.budgetUsd === null ? 'no limit' : formatUsd(best.budgetUsd, { cents: true });
+    lines.push(
+      `Best        by ${best.objective === 'npv' ? 'NPV' : best.objective === 'sir' ? 'SIR' : 'savings a year'} ` +
+        `within ${budget} of energy work: ` +
+        (best.measureIds.length === 0 ? 'no measure fits' : best.measureIds.join(', ')),
+      `            costs ${formatUsd(best.costUsd, { cents: true })} (energy ${formatUsd(best.energyCostUsd, { cents: true })}); ` +
+        `saves ${formatUsd(best.annualSavingsUsd)}/yr; NPV ${formatUsd(best.npvUsd, { cents: true })}; ` +
+        `SIR ${formatRatio(best.sir)}`,
+    );
+  }
+  return lines;
 }
 
 /** Width the plan's prose is wrapped to, in characters. */
@@ -56,7 +98,7 @@ const SEVERITY_WORDS: Record<string, string> = {
 };
 
 /** The whole plan of one home as text. */
-export function planText(report: EvaluationReport): string {
+export function planText(report: EvaluationWithChoices): string {
   const { leakage, infiltration, package: pkg } = report;
   const unit = pkg.annualSavings.heatingFuelUnit;
   const lines: string[] = [];
@@ -140,6 +182,7 @@ export function planText(report: EvaluationReport): string {
         `${formatUsd(loan.lifetimeNetUsd, { cents: true })} ahead over the measures' lives`,
     );
   }
+  lines.push(...choicesLines(report));
   if (report.cautions.length > 0) {
     lines.push('');
     lines.push('Safety');

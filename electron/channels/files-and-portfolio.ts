@@ -3,8 +3,8 @@
  * portfolio as CSV (checked, imported, exported) with its summary.
  */
 import { z } from 'zod';
-import { evaluateHomeReport } from '../../core/evaluate.ts';
-import type { EvaluationReport } from '../../core/report.ts';
+import { reportWithChoices, type EvaluationWithChoices } from '../../core/choices.ts';
+import { evaluateHome } from '../../core/evaluate.ts';
 import type { HomeFile } from '../../core/schema.ts';
 import { exportHomesCsv, resultsCsv, type HomesCsvExport } from '../../db/csv-export.ts';
 import {
@@ -16,6 +16,7 @@ import {
 import { exportHomeFile, importHomeFile } from '../../db/home-file.ts';
 import { portfolioSummary, type PortfolioSummary } from '../../db/portfolio.ts';
 import { byId, channel, id, nothing, recordOf } from './_define.ts';
+import { choicesFields, choicesOf } from './choices.ts';
 
 /** The largest portfolio CSV a request may carry, characters (10,000 homes fit easily). */
 const MAX_CSV_CHARS = 8 * 1024 * 1024;
@@ -35,9 +36,10 @@ export const fileAndPortfolioChannels = {
     handle: ({ store }, request) => store.read((read) => exportHomeFile(read, request.id)),
   }),
   'homeFile.evaluate': channel({
-    request: z.strictObject({ file: z.unknown() }),
-    response: recordOf<EvaluationReport>(),
-    handle: (_context, request) => evaluateHomeReport(request.file),
+    request: z.strictObject({ file: z.unknown(), ...choicesFields }),
+    response: recordOf<EvaluationWithChoices>(),
+    handle: (_context, request) =>
+      reportWithChoices(evaluateHome(request.file), choicesOf(request)),
   }),
   'portfolio.summary': channel({
     request: nothing,

@@ -1,9 +1,13 @@
 /** The channels of a home's plan (evaluated and saved) and of the project's measure library. */
 import { z } from 'zod';
+import {
+  reportWithChoices,
+  type ChoicesRequest,
+  type EvaluationWithChoices,
+} from '../../core/choices.ts';
 import { evaluateHome, evaluateHomeReport } from '../../core/evaluate.ts';
 import { MEASURE_LIBRARY, type MeasureType } from '../../core/measure-library.ts';
 import { explainMeasure, TRACE_QUANTITIES } from '../../core/plan/trace.ts';
-import type { EvaluationReport } from '../../core/report.ts';
 import { ENGINE_VERSION } from '../../core/version.ts';
 import { exportHomeFile } from '../../db/home-file.ts';
 import {
@@ -13,6 +17,7 @@ import {
   saveLibraryEdit,
 } from '../../db/repositories/library.ts';
 import { getPlan, listPlans, savePlan, type SavedPlan } from '../../db/repositories/plans.ts';
+import { choicesFields, choicesOf } from './choices.ts';
 import {
   byId,
   channel,
@@ -24,10 +29,13 @@ import {
   type ChannelContext,
 } from './_define.ts';
 
-/** The evaluation report of a stored home, with the project's library edits. */
-function evaluateStored(context: ChannelContext, homeId: number) {
+/** The evaluation report of a stored home, with the project's library edits and the choices asked. */
+function evaluateStored(context: ChannelContext, homeId: number, choices: ChoicesRequest) {
   return context.store.read((read) =>
-    evaluateHomeReport(exportHomeFile(read, homeId), { library: effectiveLibrary(read) }),
+    reportWithChoices(
+      evaluateHome(exportHomeFile(read, homeId), { library: effectiveLibrary(read) }),
+      choices,
+    ),
   );
 }
 
@@ -63,9 +71,9 @@ const measureTraceSchema = z.strictObject({
 /** The `plan.evaluate`, `plan.explain`, `plans.*` and `library.*` channels. */
 export const planAndLibraryChannels = {
   'plan.evaluate': channel({
-    request: z.strictObject({ homeId: id }),
-    response: recordOf<EvaluationReport>(),
-    handle: (context, request) => evaluateStored(context, request.homeId),
+    request: z.strictObject({ homeId: id, ...choicesFields }),
+    response: recordOf<EvaluationWithChoices>(),
+    handle: (context, request) => evaluateStored(context, request.homeId, choicesOf(request)),
   }),
   'plan.explain': channel({
     request: z.strictObject({ homeId: id, measureId: z.string().min(1).max(64) }),

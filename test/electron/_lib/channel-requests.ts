@@ -170,9 +170,15 @@ export function validRequests(ids: KnownIds): ValidRequests {
     'measures.add': { homeId: ids.homeId, measure: directMeasure() },
     'measures.update': { id: ids.measureId, measure: unitMeasure() },
     'measures.delete': { id: ids.measureId },
-    'plan.evaluate': { homeId: ids.homeId },
+    'plan.evaluate': {
+      homeId: ids.homeId,
+      draws: 200,
+      seed: 7,
+      budget: { budgetUsd: 1500, objective: 'npv', packageSirAtLeastOne: true },
+    },
     // The measure the measures.add request adds (the corpus runs it before this one).
     'plan.explain': { homeId: ids.homeId, measureId: directMeasure().id },
+    'plan.options': { homeId: ids.homeId, firstStepShare: 0.5, draws: 200, seed: 7 },
     'plans.save': { homeId: ids.homeId, name: 'Plan for the channel tests' },
     'plans.list': { homeId: ids.homeId },
     'plans.get': { id: ids.planId },
