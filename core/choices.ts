@@ -20,7 +20,12 @@ import type { Distribution } from './uncertainty/distributions.ts';
 import { packageUncertainty, type VariationOptions } from './uncertainty/monte-carlo.ts';
 import { withRanges } from './uncertainty/package-ranges.ts';
 
-export type { BestPackageReport, OptionReport, UncertaintyReport } from './choices-report.ts';
+export type {
+  BestPackageReport,
+  OptionReport,
+  SpreadReport,
+  UncertaintyReport,
+} from './choices-report.ts';
 
 /** Draws of a run when a seed is given without them. */
 export const DEFAULT_DRAWS = 10_000;
@@ -66,6 +71,16 @@ function runOf(request: RangesRequest) {
   };
 }
 
+/** The JSON of the plan's package's range of outcomes. */
+export function uncertaintyReportOf(
+  evaluation: Evaluation,
+  request: RangesRequest,
+): UncertaintyReport {
+  return uncertaintyReport(
+    packageUncertainty(evaluation, runOf(request) ?? { draws: DEFAULT_DRAWS, seed: DEFAULT_SEED }),
+  );
+}
+
 /** The best package's JSON for a budget request. */
 export function bestPackageFor(evaluation: Evaluation, budget: BudgetRequest): BestPackageReport {
   const constraints = {
@@ -91,7 +106,7 @@ export function reportWithChoices(
 ): EvaluationWithChoices {
   const report: EvaluationWithChoices = reportOf(evaluation);
   const run = runOf(request);
-  if (run) report.uncertainty = uncertaintyReport(packageUncertainty(evaluation, run));
+  if (run) report.uncertainty = uncertaintyReportOf(evaluation, run);
   if (request.budget) report.bestPackage = bestPackageFor(evaluation, request.budget);
   return report;
 }

@@ -4,6 +4,8 @@
  * still says in words what it shows (its aria-label and the table beside it).
  */
 import {
+  BarController,
+  BarElement,
   CategoryScale,
   Chart,
   Legend,
@@ -20,6 +22,8 @@ import {
 export type AxisOptions = NonNullable<NonNullable<ChartOptions<'line'>['scales']>[string]>;
 
 Chart.register(
+  BarController,
+  BarElement,
   ScatterController,
   LineController,
   PointElement,

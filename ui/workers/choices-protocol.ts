@@ -1,0 +1,37 @@
+/**
+ * The messages between the page and its choices worker (ui/workers/choices-worker.ts): a job
+ * carries the home as a home file and the project's measure library, so the worker evaluates
+ * exactly what the host does, and an answer carries the job's id back.
+ */
+import type {
+  BestPackageReport,
+  BudgetRequest,
+  OptionReport,
+  RangesRequest,
+  UncertaintyReport,
+} from '../../core/choices.ts';
+import type { MeasureType } from '../../core/measure-library.ts';
+import type { ProposalOptionsSettings } from '../../core/plan/options.ts';
+
+/** What the worker evaluates from: the home file and the library it takes defaults from. */
+export interface ChoicesInputs {
+  /** Names these inputs: jobs with the same key share one evaluation in the worker. */
+  key: string;
+  homeFile: unknown;
+  libraryTypes: readonly MeasureType[];
+}
+
+export type ChoicesJob = { id: number; inputs: ChoicesInputs } & (
+  | { kind: 'ranges'; request: RangesRequest & { draws: number; seed: number } }
+  | { kind: 'best'; request: BudgetRequest }
+  | { kind: 'options'; request: ProposalOptionsSettings & RangesRequest }
+);
+
+export type ChoicesValue =
+  | { kind: 'ranges'; value: UncertaintyReport }
+  | { kind: 'best'; value: BestPackageReport }
+  | { kind: 'options'; value: OptionReport[] };
+
+export type ChoicesAnswer =
+  | ({ id: number; ok: true; ms: number } & ChoicesValue)
+  | { id: number; ok: false; error: { message: string; field?: string } };
