@@ -40,6 +40,7 @@ export const CHANNEL_NAMES = [
   'homeFile.export',
   'homeFile.evaluate',
   'portfolio.summary',
+  'portfolio.evaluate',
   'portfolio.checkCsv',
   'portfolio.importCsv',
   'portfolio.homesCsv',

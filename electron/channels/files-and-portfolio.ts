@@ -15,6 +15,12 @@ import {
 } from '../../db/csv-import.ts';
 import { exportHomeFile, importHomeFile } from '../../db/home-file.ts';
 import { portfolioSummary, type PortfolioSummary } from '../../db/portfolio.ts';
+import {
+  evaluatePortfolio,
+  MAX_PORTFOLIO_HOMES,
+  type PortfolioEvaluation,
+} from '../../db/portfolio-plans.ts';
+import { JOB_STATUSES, LEAKINESS_BANDS } from '../../db/repositories/homes.ts';
 import { byId, channel, id, nothing, recordOf } from './_define.ts';
 import { choicesFields, choicesOf } from './choices.ts';
 
@@ -45,6 +51,31 @@ export const fileAndPortfolioChannels = {
     request: nothing,
     response: recordOf<PortfolioSummary>(),
     handle: ({ store }) => store.read((read) => portfolioSummary(read)),
+  }),
+  // The homes given by id when `homeIds` is there, else those the filter lists (all by default).
+  'portfolio.evaluate': channel({
+    request: z.strictObject({
+      filter: z
+        .strictObject({
+          search: z.string().max(200).optional(),
+          town: z.string().max(100).optional(),
+          heatingFuel: z.string().max(40).optional(),
+          clientId: id.optional(),
+          jobStatus: z.enum(JOB_STATUSES).optional(),
+          leakiness: z.enum(LEAKINESS_BANDS).optional(),
+        })
+        .optional(),
+      homeIds: z.array(id).min(1).max(MAX_PORTFOLIO_HOMES).optional(),
+    }),
+    response: recordOf<Omit<PortfolioEvaluation, 'homes'>>(),
+    handle: ({ store }, request) =>
+      store.read((read) => {
+        const { homes: _reports, ...rest } = evaluatePortfolio(
+          read,
+          request.homeIds ? { homeIds: request.homeIds } : { filter: request.filter ?? {} },
+        );
+        return rest;
+      }),
   }),
   'portfolio.checkCsv': channel({
     request: z.strictObject({ csv: z.string().max(MAX_CSV_CHARS) }),

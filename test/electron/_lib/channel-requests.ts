@@ -215,6 +215,7 @@ export function validRequests(ids: KnownIds): ValidRequests {
     'homeFile.export': { id: ids.homeId },
     'homeFile.evaluate': { file: baseHomeFile() },
     'portfolio.summary': {},
+    'portfolio.evaluate': { filter: { heatingFuel: 'naturalGas' } },
     'portfolio.checkCsv': { csv: PORTFOLIO_CSV },
     'portfolio.importCsv': { csv: PORTFOLIO_CSV },
     'portfolio.homesCsv': {},

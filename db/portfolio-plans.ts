@@ -1,0 +1,150 @@
+/**
+ * The stored homes of a portfolio evaluated together: each chosen home's plan (as the
+ * `plan.evaluate` channel gives it, with the project's library edits), the portfolio's figures
+ * (core/portfolio.ts), and the test-out results of the homes that have one (core/test-out.ts).
+ * A home that cannot be planned yet (no test-in, no prices, …) is listed with the reason and
+ * left out of the figures, so one unfinished home never hides the rest.
+ */
+import { InputError } from '../core/errors.ts';
+import { evaluateHome, reportOf } from '../core/evaluate.ts';
+import { portfolioFigures, type PortfolioFigures, type PortfolioHome } from '../core/portfolio.ts';
+import {
+  realizationByType,
+  testOutInputOf,
+  testOutResults,
+  type TestOutInput,
+  type TestOutResult,
+  type TypeRealization,
+} from '../core/test-out.ts';
+import { DbError } from './errors.ts';
+import { exportHomeFile } from './home-file.ts';
+import { listHomes, type HomeFilter } from './repositories/homes.ts';
+import { effectiveLibrary } from './repositories/library.ts';
+import type { ReadAccess } from './store.ts';
+
+/** Which homes: those of a filter (as the Homes list), or exactly these ids. */
+export type PortfolioSelection =
+  | { filter: Omit<HomeFilter, 'limit' | 'offset' | 'sort' | 'descending'> }
+  | { homeIds: readonly number[] };
+
+export interface SkippedHome {
+  homeId: number;
+  name: string;
+  /** Why it could not be planned, with the field at fault when there is one. */
+  reason: string;
+  field?: string;
+}
+
+/** One home's line of the portfolio: its package's figures. */
+export interface PortfolioRow {
+  homeId: number;
+  name: string;
+  heatingFuel: string;
+  measures: number;
+  costUsd: number;
+  healthAndSafetyCostUsd: number;
+  annualSavingsUsd: number;
+  npvUsd: number;
+  sir: number | null;
+  mmbtu: number;
+  co2Kg: number;
+  cfm50Before: number;
+  cfm50After: number;
+  ach50Before: number;
+  ach50After: number;
+}
+
+export interface PortfolioEvaluation {
+  homes: PortfolioHome[];
+  rows: PortfolioRow[];
+  figures: PortfolioFigures;
+  testOut: { results: TestOutResult[]; byType: TypeRealization[] };
+  skipped: SkippedHome[];
+}
+
+/** The most homes one portfolio evaluation takes. */
+export const MAX_PORTFOLIO_HOMES = 20_000;
+
+function selectedHomes(read: ReadAccess, selection: PortfolioSelection) {
+  if ('homeIds' in selection) {
+    const wanted = new Set(selection.homeIds);
+    const live = listHomes(read, { limit: MAX_PORTFOLIO_HOMES });
+    const found = live.filter((home) => wanted.has(home.id));
+    const missing = [...wanted].filter((homeId) => !found.some((home) => home.id === homeId));
+    if (missing.length > 0) {
+      throw InputError.at('homeIds', `no live home has the id ${missing.slice(0, 5).join(', ')}`);
+    }
+    return found;
+  }
+  return listHomes(read, { ...selection.filter, limit: MAX_PORTFOLIO_HOMES });
+}
+
+function rowOf(home: PortfolioHome): PortfolioRow {
+  const pkg = home.report.package;
+  const ach = (cfm50: number) => (cfm50 * 60) / home.volumeFt3;
+  return {
+    homeId: home.homeId,
+    name: home.name,
+    heatingFuel: home.heatingFuel,
+    measures: pkg.measureIds.length,
+    costUsd: pkg.costUsd,
+    healthAndSafetyCostUsd: pkg.healthAndSafetyCostUsd,
+    annualSavingsUsd: pkg.annualSavingsUsd,
+    npvUsd: pkg.npvUsd,
+    sir: pkg.sir,
+    mmbtu: pkg.annualSavings.mmbtu,
+    co2Kg: pkg.annualSavings.co2Kg,
+    cfm50Before: pkg.cfm50Before,
+    cfm50After: pkg.cfm50After,
+    ach50Before: ach(pkg.cfm50Before),
+    ach50After: ach(pkg.cfm50After),
+  };
+}
+
+/**
+ * Evaluates the chosen homes of the project.
+ *
+ * @param onProgress - told after each home (done, of)
+ */
+export function evaluatePortfolio(
+  read: ReadAccess,
+  selection: PortfolioSelection,
+  onProgress?: (done: number, of: number) => void,
+): PortfolioEvaluation {
+  const library = effectiveLibrary(read);
+  const chosen = selectedHomes(read, selection);
+  const homes: PortfolioHome[] = [];
+  const testOuts: TestOutInput[] = [];
+  const skipped: SkippedHome[] = [];
+  chosen.forEach((summary, index) => {
+    try {
+      const evaluation = evaluateHome(exportHomeFile(read, summary.id), { library });
+      homes.push({
+        homeId: summary.id,
+        name: summary.name,
+        heatingFuel: evaluation.home.heating.fuel,
+        volumeFt3: evaluation.home.house.conditionedVolumeFt3,
+        report: reportOf(evaluation),
+      });
+      const testOut = testOutInputOf(summary.id, evaluation);
+      if (testOut) testOuts.push(testOut);
+    } catch (error) {
+      if (!(error instanceof InputError) && !(error instanceof DbError)) throw error;
+      skipped.push({
+        homeId: summary.id,
+        name: summary.name,
+        reason: error.message,
+        ...(error instanceof InputError && error.field ? { field: error.field } : {}),
+      });
+    }
+    onProgress?.(index + 1, chosen.length);
+  });
+  const results = testOutResults(testOuts);
+  return {
+    homes,
+    rows: homes.map(rowOf),
+    figures: portfolioFigures(homes),
+    testOut: { results, byType: realizationByType(results) },
+    skipped,
+  };
+}
