@@ -5,6 +5,7 @@
  * A home that cannot be planned yet (no test-in, no prices, …) is listed with the reason and
  * left out of the figures, so one unfinished home never hides the rest.
  */
+import { fitRealization, type RealizationFit } from '../core/calibration.ts';
 import { InputError } from '../core/errors.ts';
 import { evaluateHome, reportOf } from '../core/evaluate.ts';
 import { portfolioFigures, type PortfolioFigures, type PortfolioHome } from '../core/portfolio.ts';
@@ -59,7 +60,36 @@ export interface PortfolioEvaluation {
   rows: PortfolioRow[];
   figures: PortfolioFigures;
   testOut: { results: TestOutResult[]; byType: TypeRealization[] };
+  /** Realization factors by type fitted jointly over the tested homes; null with none. */
+  calibration: RealizationFit | null;
   skipped: SkippedHome[];
+}
+
+/** The bootstrap's seed when none is given: the same figures every time. */
+export const CALIBRATION_SEED = 1;
+
+/**
+ * The calibration of the tested homes: measured reduction on estimates summed by type. Homes
+ * that tested leakier after the work are left out: their tests want checking first.
+ */
+function calibrationOf(results: readonly TestOutResult[], seed: number): RealizationFit | null {
+  const trusted = results.filter((result) => result.testOutCfm50 <= result.testInCfm50);
+  if (trusted.length === 0) return null;
+  return fitRealization(
+    trusted.map((result) => {
+      const estimatedByType: Record<string, number> = {};
+      for (const measure of result.done) {
+        estimatedByType[measure.type] =
+          (estimatedByType[measure.type] ?? 0) + measure.estimatedReductionCfm50;
+      }
+      return {
+        homeId: result.homeId,
+        measuredReductionCfm50: result.measuredReductionCfm50,
+        estimatedByType,
+      };
+    }),
+    { seed },
+  );
 }
 
 /** The most homes one portfolio evaluation takes. */
@@ -110,6 +140,7 @@ export function evaluatePortfolio(
   read: ReadAccess,
   selection: PortfolioSelection,
   onProgress?: (done: number, of: number) => void,
+  calibrationSeed = CALIBRATION_SEED,
 ): PortfolioEvaluation {
   const library = effectiveLibrary(read);
   const chosen = selectedHomes(read, selection);
@@ -145,6 +176,7 @@ export function evaluatePortfolio(
     rows: homes.map(rowOf),
     figures: portfolioFigures(homes),
     testOut: { results, byType: realizationByType(results) },
+    calibration: calibrationOf(results, calibrationSeed),
     skipped,
   };
 }

@@ -1,5 +1,5 @@
 /**
- * Where the screens are: the Homes list, the Library, the Settings, or a section of one home's workspace, kept in the
+ * Where the screens are: the Homes list, the Portfolio, the Library, the Settings, or a section of one home's workspace, kept in the
  * address's fragment (`#/homes/12/leak-test`) so a reload returns to the same place.
  */
 
@@ -18,6 +18,7 @@ export type SectionSlug = Section['slug'];
 
 export type Place =
   | { screen: 'homes' }
+  | { screen: 'portfolio' }
   | { screen: 'library' }
   | { screen: 'settings' }
   | { screen: 'home'; homeId: number; section: SectionSlug };
@@ -28,6 +29,7 @@ function isSectionSlug(text: string): text is SectionSlug {
 
 /** The place a fragment names; anything unknown is the Homes list. */
 export function placeOf(hash: string): Place {
+  if (/^#\/portfolio\/?$/.test(hash)) return { screen: 'portfolio' };
   if (/^#\/library\/?$/.test(hash)) return { screen: 'library' };
   if (/^#\/settings\/?$/.test(hash)) return { screen: 'settings' };
   const match = /^#\/homes\/(\d{1,9})(?:\/([a-z-]+))?\/?$/.exec(hash);

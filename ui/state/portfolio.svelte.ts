@@ -1,0 +1,72 @@
+/**
+ * The Portfolio screen's state: which homes (the same filters as the Homes list), the
+ * portfolio's figures for them (portfolio.evaluate), and the choices the filters offer (the
+ * towns and heating fuels the project's homes have).
+ */
+import type { ChannelRequest, ChannelResponse } from '../../electron/channels.ts';
+import { call } from '../bridge.ts';
+import type { LoadStatus } from './homes.svelte.ts';
+
+export type PortfolioReply = ChannelResponse<'portfolio.evaluate'>;
+type Filter = NonNullable<ChannelRequest<'portfolio.evaluate'>['filter']>;
+
+/** The filters as the boxes hold them; '' is "any". */
+export interface PortfolioFilterText {
+  town: string;
+  heatingFuel: string;
+  jobStatus: string;
+  leakiness: string;
+}
+
+export class PortfolioState {
+  filter = $state<PortfolioFilterText>({ town: '', heatingFuel: '', jobStatus: '', leakiness: '' });
+  value = $state.raw<PortfolioReply | null>(null);
+  status = $state<LoadStatus>('loading');
+  failure = $state<string | null>(null);
+  towns = $state.raw<string[]>([]);
+  fuels = $state.raw<string[]>([]);
+  /** How long the last evaluation took, from asking to the answer, milliseconds. */
+  ms = $state<number | null>(null);
+  #asked = 0;
+
+  /** The towns and fuels of the project's homes, for the filters' choices. */
+  async loadChoices(): Promise<void> {
+    const reply = await call('homes.list', { limit: 10_000 });
+    if (!reply.ok) return;
+    const distinct = (values: (string | null)[]) =>
+      [
+        ...new Set(values.filter((value): value is string => value !== null && value !== '')),
+      ].sort();
+    this.towns = distinct(reply.value.map((home) => home.town));
+    this.fuels = distinct(reply.value.map((home) => home.heatingFuel));
+  }
+
+  /** The request's filter from the boxes: only the ones given. */
+  requestFilter(): Filter {
+    const text = this.filter;
+    const filter: Filter = {};
+    if (text.town !== '') filter.town = text.town;
+    if (text.heatingFuel !== '') filter.heatingFuel = text.heatingFuel;
+    if (text.jobStatus !== '') filter.jobStatus = text.jobStatus as Filter['jobStatus'];
+    if (text.leakiness !== '') filter.leakiness = text.leakiness as Filter['leakiness'];
+    return filter;
+  }
+
+  /** Evaluates the homes the filters choose; a reply to an earlier request is dropped. */
+  async load(): Promise<void> {
+    const asked = ++this.#asked;
+    this.status = 'loading';
+    const started = performance.now();
+    const reply = await call('portfolio.evaluate', { filter: this.requestFilter() });
+    if (asked !== this.#asked) return;
+    this.ms = performance.now() - started;
+    if (reply.ok) {
+      this.value = reply.value;
+      this.failure = null;
+      this.status = 'ready';
+    } else {
+      this.failure = reply.error.message;
+      this.status = 'failed';
+    }
+  }
+}
