@@ -1,11 +1,19 @@
 /**
- * The Portfolio's tables as CSV files (RFC 4180: comma-separated, a header row, fields with a
+ * A portfolio's tables as CSV files (RFC 4180: comma-separated, a header row, fields with a
  * comma, quote or line break quoted and their quotes doubled, CRLF line ends), for a
  * spreadsheet: each home's package, the figures by measure type, and the test-out results.
  */
-import type { ChannelResponse } from '../electron/channels.ts';
+import type { PortfolioFigures, PortfolioRow } from './portfolio.ts';
+import type { TestOutResult } from './test-out.ts';
 
-type PortfolioReply = ChannelResponse<'portfolio.evaluate'>;
+/** What the files are made from: the portfolio's rows, figures and test-out results. */
+export interface PortfolioTables {
+  rows: readonly PortfolioRow[];
+  figures: Pick<PortfolioFigures, 'byType'>;
+  testOut: { results: readonly TestOutResult[] };
+}
+
+type PortfolioReply = PortfolioTables;
 
 type Cell = string | number | boolean | null;
 

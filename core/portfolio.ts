@@ -95,6 +95,25 @@ export interface PortfolioFigures {
   supplyCurve: SupplyStep[];
 }
 
+/** One home's line of the portfolio: its package's figures. */
+export interface PortfolioRow {
+  homeId: number;
+  name: string;
+  heatingFuel: string;
+  measures: number;
+  costUsd: number;
+  healthAndSafetyCostUsd: number;
+  annualSavingsUsd: number;
+  npvUsd: number;
+  sir: number | null;
+  mmbtu: number;
+  co2Kg: number;
+  cfm50Before: number;
+  cfm50After: number;
+  ach50Before: number;
+  ach50After: number;
+}
+
 /** Histogram bins of the leakage distributions. */
 export const LEAKAGE_HISTOGRAM_BINS = 20;
 
@@ -237,6 +256,29 @@ function supplyCurveOf(homes: readonly PortfolioHome[]): SupplyStep[] {
     cumulative += step.mmbtu;
     return { ...step, cumulativeMmbtu: cumulative };
   });
+}
+
+/** A home's line of the portfolio. */
+export function portfolioRowOf(home: PortfolioHome): PortfolioRow {
+  const pkg = home.report.package;
+  const ach = (cfm50: number) => (cfm50 * 60) / home.volumeFt3;
+  return {
+    homeId: home.homeId,
+    name: home.name,
+    heatingFuel: home.heatingFuel,
+    measures: pkg.measureIds.length,
+    costUsd: pkg.costUsd,
+    healthAndSafetyCostUsd: pkg.healthAndSafetyCostUsd,
+    annualSavingsUsd: pkg.annualSavingsUsd,
+    npvUsd: pkg.npvUsd,
+    sir: pkg.sir,
+    mmbtu: pkg.annualSavings.mmbtu,
+    co2Kg: pkg.annualSavings.co2Kg,
+    cfm50Before: pkg.cfm50Before,
+    cfm50After: pkg.cfm50After,
+    ach50Before: ach(pkg.cfm50Before),
+    ach50After: ach(pkg.cfm50After),
+  };
 }
 
 /**

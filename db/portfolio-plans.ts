@@ -8,7 +8,13 @@
 import { fitRealization, type RealizationFit } from '../core/calibration.ts';
 import { InputError } from '../core/errors.ts';
 import { evaluateHome, reportOf } from '../core/evaluate.ts';
-import { portfolioFigures, type PortfolioFigures, type PortfolioHome } from '../core/portfolio.ts';
+import {
+  portfolioFigures,
+  portfolioRowOf,
+  type PortfolioFigures,
+  type PortfolioHome,
+  type PortfolioRow,
+} from '../core/portfolio.ts';
 import {
   realizationByType,
   testOutInputOf,
@@ -34,25 +40,6 @@ export interface SkippedHome {
   /** Why it could not be planned, with the field at fault when there is one. */
   reason: string;
   field?: string;
-}
-
-/** One home's line of the portfolio: its package's figures. */
-export interface PortfolioRow {
-  homeId: number;
-  name: string;
-  heatingFuel: string;
-  measures: number;
-  costUsd: number;
-  healthAndSafetyCostUsd: number;
-  annualSavingsUsd: number;
-  npvUsd: number;
-  sir: number | null;
-  mmbtu: number;
-  co2Kg: number;
-  cfm50Before: number;
-  cfm50After: number;
-  ach50Before: number;
-  ach50After: number;
 }
 
 export interface PortfolioEvaluation {
@@ -109,28 +96,6 @@ function selectedHomes(read: ReadAccess, selection: PortfolioSelection) {
   return listHomes(read, { ...selection.filter, limit: MAX_PORTFOLIO_HOMES });
 }
 
-function rowOf(home: PortfolioHome): PortfolioRow {
-  const pkg = home.report.package;
-  const ach = (cfm50: number) => (cfm50 * 60) / home.volumeFt3;
-  return {
-    homeId: home.homeId,
-    name: home.name,
-    heatingFuel: home.heatingFuel,
-    measures: pkg.measureIds.length,
-    costUsd: pkg.costUsd,
-    healthAndSafetyCostUsd: pkg.healthAndSafetyCostUsd,
-    annualSavingsUsd: pkg.annualSavingsUsd,
-    npvUsd: pkg.npvUsd,
-    sir: pkg.sir,
-    mmbtu: pkg.annualSavings.mmbtu,
-    co2Kg: pkg.annualSavings.co2Kg,
-    cfm50Before: pkg.cfm50Before,
-    cfm50After: pkg.cfm50After,
-    ach50Before: ach(pkg.cfm50Before),
-    ach50After: ach(pkg.cfm50After),
-  };
-}
-
 /**
  * Evaluates the chosen homes of the project.
  *
@@ -173,7 +138,7 @@ export function evaluatePortfolio(
   const results = testOutResults(testOuts);
   return {
     homes,
-    rows: homes.map(rowOf),
+    rows: homes.map(portfolioRowOf),
     figures: portfolioFigures(homes),
     testOut: { results, byType: realizationByType(results) },
     calibration: calibrationOf(results, calibrationSeed),

@@ -21,6 +21,7 @@ import {
   type ChannelResponse,
 } from './channels.ts';
 import { dryRunText, homesText, portfolioText } from './cli-text.ts';
+import { runPortfolioPlans } from './cli-portfolio.ts';
 import { planText } from './plan-text.ts';
 
 export const EXIT_OK = 0;
@@ -31,6 +32,8 @@ export const EXIT_BAD_INPUT = 2;
 export interface CliOutput {
   out(text: string): void;
   err(text: string): void;
+  /** A line of progress that replaces the one before (a terminal's bar); optional. */
+  progress?(text: string): void;
 }
 
 export class UsageError extends Error {}
@@ -62,6 +65,10 @@ export interface Parsed {
   dryRun: boolean;
   results: boolean;
   choices: ChoicesFlags;
+  /** portfolio: every stored home. */
+  all: boolean;
+  /** portfolio: the folder to write the CSV and JSON files to. */
+  out: string | undefined;
 }
 
 /** What `evaluate` was asked beyond the plan; the channel checks each value and names it. */
@@ -90,7 +97,7 @@ function projectPath(parsed: Parsed): string {
 }
 
 /** Runs `work` with the command's project, closing it afterwards whatever happens. */
-async function withProject<T>(
+export async function withProject<T>(
   parsed: Parsed,
   work: (context: ChannelContext) => Promise<T> | T,
 ): Promise<T> {
@@ -107,7 +114,7 @@ async function withProject<T>(
 }
 
 /** Calls a channel; its value, or a ChannelFailure. */
-function ask<Name extends ChannelName>(
+export function ask<Name extends ChannelName>(
   context: ChannelContext,
   name: Name,
   request: ChannelRequest<Name>,
@@ -126,7 +133,7 @@ export function expectPositionals(parsed: Parsed, names: string[]): string[] {
   return parsed.positionals;
 }
 
-async function readTextFile(path: string): Promise<string> {
+export async function readTextFile(path: string): Promise<string> {
   try {
     return await readFile(path, 'utf8');
   } catch (error) {
@@ -252,6 +259,9 @@ export async function runExportCsv(parsed: Parsed, output: CliOutput): Promise<n
 }
 
 export async function runPortfolio(parsed: Parsed, output: CliOutput): Promise<number> {
+  if (parsed.all || parsed.positionals.length > 0 || parsed.out !== undefined) {
+    return runPortfolioPlans(parsed, output);
+  }
   expectPositionals(parsed, []);
   const summary = await withProject(parsed, (context) => ask(context, 'portfolio.summary', {}));
   output.out(parsed.json ? JSON.stringify(summary, null, 2) : portfolioText(summary));

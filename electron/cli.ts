@@ -53,6 +53,9 @@ Usage:
                                             a row of each home's leakage and plan figures
   sealwork portfolio [--json]               the summary: homes by fuel, town and decade built,
                                             test-in leakage, measures by status and type
+  sealwork portfolio --all|FILE.csv [--out DIR] [--json]
+                                            every stored home (or a CSV's, not stored) planned
+                                            together: totals, by type, test-outs; DIR gets CSVs
   sealwork backup FILE                      copy the whole project to FILE
   sealwork restore FILE                     replace the project with a backup
   sealwork demo [--json]                    evaluate the invented demo homes
@@ -69,6 +72,10 @@ Exit codes: 0 done, 2 bad input (problems listed on stderr), 1 unexpected error.
 const processOutput: CliOutput = {
   out: (text) => process.stdout.write(text.endsWith('\n') ? text : `${text}\n`),
   err: (text) => process.stderr.write(text.endsWith('\n') ? text : `${text}\n`),
+  // Only a terminal gets the bar: redrawn in place, cleared at the end.
+  progress: (text) => {
+    if (process.stderr.isTTY) process.stderr.write(`\r\x1b[2K${text}`);
+  },
 };
 
 function parse(argv: readonly string[]): Parsed {
@@ -80,6 +87,8 @@ function parse(argv: readonly string[]): Parsed {
       demo: { type: 'boolean' },
       'dry-run': { type: 'boolean' },
       results: { type: 'boolean' },
+      all: { type: 'boolean' },
+      out: { type: 'string' },
       draws: { type: 'string' },
       seed: { type: 'string' },
       distribution: { type: 'string' },
@@ -100,6 +109,8 @@ function parse(argv: readonly string[]): Parsed {
     dryRun: values['dry-run'] === true,
     results: values.results === true,
     choices: choicesOfFlags(values),
+    all: values.all === true,
+    out: values.out,
   };
 }
 

@@ -5,7 +5,7 @@
  */
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import { csvField, csvText } from '../../ui/portfolio-csv.ts';
+import { csvField, csvText } from '../../core/portfolio-csv.ts';
 
 describe('portfolio CSV', () => {
   it('quotes only what must be quoted (RFC 4180, section 2)', () => {
