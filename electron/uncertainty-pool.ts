@@ -1,8 +1,12 @@
 /**
  * Runs the uncertainty of many homes (a portfolio) on worker threads, off the main thread.
  * Homes go out in batches to whichever worker is free; each home's draws use its place in
- * the list as their stream, so the figures are the same for any number of workers and any
- * order of completion.
+ * the list as their stream, so the figures are the same for any number of workers, any batch
+ * size and any order of completion.
+ *
+ * Each worker has a second batch waiting while it runs one, so it never idles for the round
+ * trip of a message; and batches shrink towards the end of the list (from 100 homes down to
+ * 10), so the workers finish together instead of one running a last full batch alone.
  *
  * The worker is TypeScript. Under tsx or vitest it starts from a two-line bootstrap that
  * registers tsx's loader in the worker and then imports it: Node 20 does not apply a
@@ -25,6 +29,10 @@ export type { HomeUncertainty } from './uncertainty-worker.ts';
 
 /** Homes per batch: small enough to share the work evenly, large enough to keep messages few. */
 const DEFAULT_BATCH_HOMES = 100;
+/** The smallest batch the shrinking batches come down to at the end of a portfolio. */
+const MIN_BATCH_HOMES = 10;
+/** Batches sent to a worker before it answers: the one it runs and the one waiting. */
+const BATCHES_IN_FLIGHT = 2;
 const MAX_WORKERS = 64;
 
 export interface PortfolioRequest {
@@ -33,6 +41,7 @@ export interface PortfolioRequest {
   options: Omit<UncertaintyOptions, 'stream'>;
   /** The project's measure library; the shipped one when absent. */
   libraryTypes?: readonly MeasureType[];
+  /** Homes in every batch; by default 100, shrinking to 10 over the last batches. */
   batchHomes?: number;
 }
 
@@ -40,8 +49,12 @@ export interface UncertaintyPool {
   readonly workers: number;
   /** Every home's outcome, in the order of `request.homes`. */
   run(request: PortfolioRequest): Promise<HomeUncertainty[]>;
-  /** Milliseconds the last run's workers spent evaluating and drawing, summed over workers. */
-  readonly lastRunTiming: { evaluateMs: number; drawMs: number };
+  /**
+   * Milliseconds the last run's workers spent planning homes and drawing, summed over
+   * workers (wall clock), and the CPU time their threads had in that run, from the start of
+   * each one's first batch to the end of its last (null where the system does not tell it).
+   */
+  readonly lastRunTiming: { evaluateMs: number; drawMs: number; cpuMs: number | null };
   close(): Promise<void>;
 }
 
@@ -79,7 +92,7 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
   }
   const workers = Array.from({ length: count }, () => watched(startWorker()));
   let busy = false;
-  const lastRunTiming = { evaluateMs: 0, drawMs: 0 };
+  const lastRunTiming: UncertaintyPool['lastRunTiming'] = { evaluateMs: 0, drawMs: 0, cpuMs: null };
 
   return {
     workers: count,
@@ -87,31 +100,29 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
     async run(request) {
       if (busy) throw new Error('the uncertainty pool is already running a portfolio');
       runSettings({ ...request.options, stream: 0 });
-      const batchHomes = request.batchHomes ?? DEFAULT_BATCH_HOMES;
-      if (!Number.isInteger(batchHomes) || batchHomes < 1) {
+      const batchHomes = request.batchHomes;
+      if (batchHomes !== undefined && (!Number.isInteger(batchHomes) || batchHomes < 1)) {
         throw InputError.at(
           'batchHomes',
           `expected a whole number of at least 1, got ${batchHomes}`,
         );
       }
-      const batches: UncertaintyBatch[] = [];
-      for (let first = 0; first < request.homes.length; first += batchHomes) {
-        batches.push({
-          batchId: batches.length,
-          firstIndex: first,
-          homes: request.homes.slice(first, first + batchHomes),
-          options: request.options,
-          ...(request.libraryTypes ? { libraryTypes: request.libraryTypes } : {}),
-        });
-      }
+      const batches = batchesOf(request, count);
       const results = new Array<HomeUncertainty>(request.homes.length);
       busy = true;
       lastRunTiming.evaluateMs = 0;
       lastRunTiming.drawMs = 0;
+      lastRunTiming.cpuMs = null;
+      const cpu = new CpuSpans();
       try {
         let next = 0;
+        // Lanes: each takes the next batch when its last one is back, so a worker has up to
+        // BATCHES_IN_FLIGHT batches at once, run one after the other.
+        const lanes = workers.flatMap((worker) =>
+          Array.from({ length: BATCHES_IN_FLIGHT }, () => worker),
+        );
         await Promise.all(
-          workers.map(async (worker) => {
+          lanes.map(async (worker) => {
             while (next < batches.length) {
               const batch = batches[next] as UncertaintyBatch;
               next += 1;
@@ -119,9 +130,11 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
               for (const result of done.results) results[result.index] = result;
               lastRunTiming.evaluateMs += done.evaluateMs;
               lastRunTiming.drawMs += done.drawMs;
+              cpu.add(worker, done.threadCpuMs);
             }
           }),
         );
+        lastRunTiming.cpuMs = cpu.totalMs();
       } finally {
         busy = false;
       }
@@ -133,31 +146,84 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
   };
 }
 
+/** Each worker's thread CPU time over a run: its first batch's start to its last's end. */
+class CpuSpans {
+  private readonly spans = new Map<WatchedWorker, { first: number; last: number }>();
+  private unknown = false;
+
+  add(worker: WatchedWorker, span: UncertaintyBatchResult['threadCpuMs']): void {
+    if (span === null) {
+      this.unknown = true;
+      return;
+    }
+    const known = this.spans.get(worker);
+    this.spans.set(worker, {
+      first: Math.min(known?.first ?? span.before, span.before),
+      last: Math.max(known?.last ?? span.after, span.after),
+    });
+  }
+
+  totalMs(): number | null {
+    if (this.unknown) return null;
+    let total = 0;
+    for (const { first, last } of this.spans.values()) total += last - first;
+    return total;
+  }
+}
+
+/**
+ * The batches of a request: `batchHomes` each when given; otherwise 100 homes while many
+ * remain, then about a quarter of what remains per worker, down to 10.
+ */
+function batchesOf(request: PortfolioRequest, workerCount: number): UncertaintyBatch[] {
+  const batches: UncertaintyBatch[] = [];
+  const total = request.homes.length;
+  for (let first = 0; first < total;) {
+    const remaining = total - first;
+    const size =
+      request.batchHomes ??
+      Math.min(
+        DEFAULT_BATCH_HOMES,
+        Math.max(MIN_BATCH_HOMES, Math.ceil(remaining / (4 * workerCount))),
+      );
+    batches.push({
+      batchId: batches.length,
+      firstIndex: first,
+      homes: request.homes.slice(first, first + size),
+      options: request.options,
+      ...(request.libraryTypes ? { libraryTypes: request.libraryTypes } : {}),
+    });
+    first += size;
+  }
+  return batches;
+}
+
 /** A worker with its failure kept: an error before or between batches fails the next run. */
 interface WatchedWorker {
   thread: Worker;
   run(batch: UncertaintyBatch): Promise<UncertaintyBatchResult>;
 }
 
+interface PendingBatch {
+  resolve: (result: UncertaintyBatchResult) => void;
+  reject: (error: Error) => void;
+}
+
 function watched(thread: Worker): WatchedWorker {
   let failure: Error | null = null;
-  let pending: {
-    batchId: number;
-    resolve: (r: UncertaintyBatchResult) => void;
-    reject: (e: Error) => void;
-  } | null = null;
+  const pending = new Map<number, PendingBatch>();
   const fail = (error: Error) => {
     failure = error;
-    pending?.reject(error);
-    pending = null;
+    for (const batch of pending.values()) batch.reject(error);
+    pending.clear();
   };
   thread.on('error', fail);
   thread.on('exit', (code) => fail(new Error(`an uncertainty worker stopped (exit code ${code})`)));
   thread.on('message', (result: UncertaintyBatchResult) => {
-    if (pending && result.batchId === pending.batchId) {
-      const { resolve } = pending;
-      pending = null;
-      resolve(result);
+    const batch = pending.get(result.batchId);
+    if (batch) {
+      pending.delete(result.batchId);
+      batch.resolve(result);
     }
   });
   return {
@@ -168,7 +234,7 @@ function watched(thread: Worker): WatchedWorker {
           reject(failure);
           return;
         }
-        pending = { batchId: batch.batchId, resolve, reject };
+        pending.set(batch.batchId, { resolve, reject });
         thread.postMessage(batch);
       });
     },

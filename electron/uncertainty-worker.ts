@@ -1,18 +1,24 @@
 /**
- * One worker of the uncertainty pool (electron/uncertainty-pool.ts): it evaluates each home
- * of a batch and runs its package's Monte Carlo with the home's place in the portfolio as its
+ * One worker of the uncertainty pool (electron/uncertainty-pool.ts): it plans each home of a
+ * batch and runs its package's Monte Carlo with the home's place in the portfolio as its
  * stream, so a home's figures are the same whichever worker runs it.
+ *
+ * A home is planned by `homePackageOf`: the package `evaluateHome` would plan, errors
+ * included, without the plan's Decimal money that a Monte Carlo run never reads (most of
+ * `evaluateHome`'s time, which was most of a portfolio's).
  */
+import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { parentPort, workerData } from 'node:worker_threads';
 import { InputError } from '../core/errors.ts';
-import { evaluateHome } from '../core/evaluate.ts';
 import { lookupOf, type MeasureType } from '../core/measure-library.ts';
+import { compileMeasuresKernel } from '../core/plan/kernel.ts';
 import {
-  packageUncertainty,
+  kernelUncertainty,
   type PackageUncertainty,
   type UncertaintyOptions,
 } from '../core/uncertainty/monte-carlo.ts';
+import { homePackageOf } from '../core/uncertainty/portfolio-home.ts';
 
 /** A batch of homes: `homes[i]` is the portfolio's home `firstIndex + i`. */
 export interface UncertaintyBatch {
@@ -32,13 +38,37 @@ export type HomeUncertainty =
 export interface UncertaintyBatchResult {
   batchId: number;
   results: HomeUncertainty[];
-  /** Milliseconds the batch spent evaluating homes and drawing their packages. */
+  /** Milliseconds the batch spent planning homes and drawing their packages. */
   evaluateMs: number;
   drawMs: number;
+  /**
+   * The thread's own CPU time before and after the batch, ms, to 10 ms; null where the
+   * system does not tell it. Beside the wall-clock figures it shows whether the worker ran
+   * or waited for a core that other work held.
+   */
+  threadCpuMs: { before: number; after: number } | null;
+}
+
+/** Clock ticks a second of Linux's per-thread CPU times (USER_HZ; `getconf CLK_TCK`). */
+const CLOCK_TICKS_PER_SECOND = 100;
+
+/** This thread's CPU time so far, ms (user and system), from Linux's /proc; null elsewhere. */
+export function threadCpuMs(): number | null {
+  try {
+    const stat = readFileSync('/proc/thread-self/stat', 'utf8');
+    // The fields after the command name, from the state (field 3): utime is field 14 and
+    // stime field 15 (proc(5)).
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    const ticks = Number(fields[11]) + Number(fields[12]);
+    return Number.isFinite(ticks) ? (ticks * 1000) / CLOCK_TICKS_PER_SECOND : null;
+  } catch {
+    return null;
+  }
 }
 
 /** Runs one batch; exported so the pool's callers and tests can run it in-process too. */
 export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
+  const cpuBefore = threadCpuMs();
   const library = batch.libraryTypes ? lookupOf(batch.libraryTypes) : undefined;
   let evaluateMs = 0;
   let drawMs = 0;
@@ -46,10 +76,13 @@ export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
     const index = batch.firstIndex + offset;
     try {
       const started = performance.now();
-      const evaluation = evaluateHome(home, library ? { library } : {});
+      const planned = homePackageOf(home, library ? { library } : {});
       const evaluated = performance.now();
       evaluateMs += evaluated - started;
-      const value = packageUncertainty(evaluation, { ...batch.options, stream: index });
+      const value = kernelUncertainty(compileMeasuresKernel(planned), {
+        ...batch.options,
+        stream: index,
+      });
       drawMs += performance.now() - evaluated;
       return { index, ok: true, value };
     } catch (error) {
@@ -59,7 +92,10 @@ export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
       return { index, ok: false, error: { message: String(error) } };
     }
   });
-  return { batchId: batch.batchId, results, evaluateMs, drawMs };
+  const cpuAfter = threadCpuMs();
+  const threadCpu =
+    cpuBefore === null || cpuAfter === null ? null : { before: cpuBefore, after: cpuAfter };
+  return { batchId: batch.batchId, results, evaluateMs, drawMs, threadCpuMs: threadCpu };
 }
 
 /** Marks a worker started by the pool (test runners run their own files in worker threads). */

@@ -16,6 +16,7 @@ import { HOURS_PER_YEAR } from '../constants.ts';
 import { InputError } from '../errors.ts';
 import type { Evaluation } from '../evaluate.ts';
 import type { HomeModel } from '../home-model.ts';
+import type { PreparedMeasure } from '../measures.ts';
 import { effectiveAnnualInfiltrationCfm } from '../infiltration/ashrae-622.ts';
 import { roundToCents, Decimal } from '../money.ts';
 import { LEAK_LOCATIONS, type Range } from '../schema.ts';
@@ -104,20 +105,39 @@ export function escalatedFactorFloat(
   );
 }
 
-/** The natural infiltration of a leakage state, heating and cooling season, into `out`. */
-type InfiltrationOf = (leakage: Float64Array, totalCfm50: number, out: Float64Array) => void;
+/**
+ * √(a² + b²), the combination of a fan's and natural infiltration's air (62.2), in plain
+ * arithmetic: √(1 + q²)·M with M the larger magnitude and q = m/M the smaller's ratio to it.
+ * That is what V8's Math.hypot works out for two finite numbers (both scaled by the larger and
+ * summed with Kahan's compensation, which is exact for two terms), bit for bit, without the
+ * cost of its variadic call: a draw combines the two for every season of every step. Zeros,
+ * infinities and NaN go to Math.hypot itself.
+ *
+ * @returns the same number as `Math.hypot(a, b)` (test/core/uncertainty.test.ts)
+ */
+export function hypotOfTwo(a: number, b: number): number {
+  const absA = Math.abs(a);
+  const absB = Math.abs(b);
+  const larger = absA > absB ? absA : absB;
+  const smaller = absA > absB ? absB : absA;
+  if (!(larger > 0 && larger < Infinity)) return Math.hypot(a, b);
+  const ratio = smaller / larger;
+  return Math.sqrt(1 + ratio * ratio) * larger;
+}
 
-function infiltrationFunction(model: HomeModel): InfiltrationOf {
-  const method = model.home.infiltrationMethod;
-  if (method === 'aim2') return aim2Flows(model);
-  // Proportional methods: one coefficient per season, from the model at the test-in state.
+/**
+ * Natural infiltration by season per CFM50 for the proportional methods, from the model at
+ * the test-in state; null for AIM-2, whose flows depend on where the leakage is.
+ */
+function proportionalInfiltration(
+  model: HomeModel,
+): { heatingPerCfm50: number; coolingPerCfm50: number } | null {
+  if (model.home.infiltrationMethod === 'aim2') return null;
   const testIn = model.testInCfm50;
   const flows = model.airflow(model.testIn);
-  const heatingPerCfm50 = testIn > 0 ? flows.heatingCfm / testIn : 0;
-  const coolingPerCfm50 = testIn > 0 ? flows.coolingCfm / testIn : 0;
-  return (_leakage, total, out) => {
-    out[0] = heatingPerCfm50 * total;
-    out[1] = coolingPerCfm50 * total;
+  return {
+    heatingPerCfm50: testIn > 0 ? flows.heatingCfm / testIn : 0,
+    coolingPerCfm50: testIn > 0 ? flows.coolingCfm / testIn : 0,
   };
 }
 
@@ -130,10 +150,29 @@ export function compilePackageKernel(
   evaluation: Pick<Evaluation, 'home' | 'model' | 'plan'>,
 ): PackageKernel {
   const { home, model, plan } = evaluation;
+  return compileMeasuresKernel({
+    home,
+    model,
+    measures: plan.entries.filter((entry) => entry.included).map((entry) => entry.step.measure),
+  });
+}
+
+/**
+ * Compiles a package given as its measures in the order applied (the plan's included ones,
+ * or those `sequenceMeasures` chose) into a kernel.
+ *
+ * @param options.home - the parsed home file
+ * @param options.model - its model
+ * @param options.measures - the package's measures in the order applied
+ */
+export function compileMeasuresKernel(options: {
+  home: Evaluation['home'];
+  model: HomeModel;
+  measures: readonly PreparedMeasure[];
+}): PackageKernel {
+  const { home, model } = options;
   const prices = buildPriceBook(home);
-  const included = plan.entries
-    .filter((entry) => entry.included)
-    .map((entry) => entry.step.measure);
+  const included = options.measures;
   const count = included.length;
 
   const locationIndex = new Uint8Array(count);
@@ -192,7 +231,10 @@ export function compilePackageKernel(
 
   // A local copy: under a CommonJS transform every read of an imported binding is a call.
   const hoursPerYear = HOURS_PER_YEAR;
-  const infiltrationOf = infiltrationFunction(model);
+  const proportional = proportionalInfiltration(model);
+  const heatingPerCfm50 = proportional?.heatingPerCfm50 ?? 0;
+  const coolingPerCfm50 = proportional?.coolingPerCfm50 ?? 0;
+  const aim2 = proportional ? null : aim2Flows(model);
   const leakage = new Float64Array(LEAK_LOCATIONS.length);
   const flows = new Float64Array(2);
   // The state of the leakage last valued: heating units, cooling kWh, added-fan kWh.
@@ -207,23 +249,40 @@ export function compilePackageKernel(
     fanCfm === 0
       ? infiltrationCfm
       : balanced
-        ? fanCfm + Math.hypot(0, infiltrationCfm)
-        : Math.hypot(fanCfm, infiltrationCfm);
+        ? fanCfm + hypotOfTwo(0, infiltrationCfm)
+        : hypotOfTwo(fanCfm, infiltrationCfm);
 
+  /** The natural infiltration of the leakage in `leakage` into `flows`. */
+  const infiltrationOf = (total: number): void => {
+    if (aim2 === null) {
+      flows[0] = heatingPerCfm50 * total;
+      flows[1] = coolingPerCfm50 * total;
+    } else {
+      aim2(leakage, total, flows);
+    }
+  };
   /** Values the leakage in `leakage` into `state`, as model.energyOf does. */
   const valueState = (total: number, conditions: Readonly<DrawConditions>): void => {
-    infiltrationOf(leakage, total, flows);
+    infiltrationOf(total);
     valueFlows(total, conditions);
   };
+  // Dividing by 1 and multiplying 0 give the same numbers as leaving the operation out, and
+  // most draws of a portfolio vary neither efficiency nor N: those operations are skipped.
+  const divided = (value: number, divisor: number): number =>
+    divisor === 1 ? value : value / divisor;
   const valueFlows = (total: number, conditions: Readonly<DrawConditions>): void => {
-    const heatingInfiltration = (flows[0] ?? 0) / conditions.infiltrationDivisor;
-    const coolingInfiltration = (flows[1] ?? 0) / conditions.infiltrationDivisor;
+    const divisor = conditions.infiltrationDivisor;
+    const heatingInfiltration = divided(flows[0] ?? 0, divisor);
+    const coolingInfiltration = divided(flows[1] ?? 0, divisor);
     const fanCfm = Math.max(existingFanCfm, fanNeedOf(total));
     const heatingCfm = withFan(heatingInfiltration, fanCfm);
     const coolingCfm = hasCooling ? withFan(coolingInfiltration, fanCfm) : 0;
-    state[0] = (heatingUnitsPerCfm * heatingCfm) / conditions.heatingEfficiencyFactor;
-    state[1] = (coolingKwhPerCfm * coolingCfm) / conditions.coolingEfficiencyFactor;
-    state[2] = ((fanCfm - existingFanCfm) * fanWattsPerCfm * hoursPerYear) / WATTS_PER_KILOWATT;
+    state[0] = divided(heatingUnitsPerCfm * heatingCfm, conditions.heatingEfficiencyFactor);
+    state[1] = divided(coolingKwhPerCfm * coolingCfm, conditions.coolingEfficiencyFactor);
+    state[2] =
+      fanCfm === existingFanCfm
+        ? 0
+        : ((fanCfm - existingFanCfm) * fanWattsPerCfm * hoursPerYear) / WATTS_PER_KILOWATT;
   };
 
   const sumLeakage = (): number =>
@@ -231,7 +290,7 @@ export function compilePackageKernel(
 
   leakage.set(testIn);
   const testInTotal = sumLeakage();
-  infiltrationOf(leakage, testInTotal, flows);
+  infiltrationOf(testInTotal);
   const testInFlows = Float64Array.from(flows);
   valueFlows(testInTotal, baseConditions);
   const testInState = Float64Array.from(state);
@@ -265,7 +324,10 @@ export function compilePackageKernel(
       }
       // The test-in state's natural infiltration is the same in every draw, and so is its
       // energy unless the draw changes efficiency or infiltration.
-      leakage.set(testIn);
+      leakage[0] = testIn[0] ?? 0;
+      leakage[1] = testIn[1] ?? 0;
+      leakage[2] = testIn[2] ?? 0;
+      leakage[3] = testIn[3] ?? 0;
       let total = testInTotal;
       let heatingUnits = testInState[0] ?? 0;
       let coolingKwh = testInState[1] ?? 0;
@@ -275,7 +337,8 @@ export function compilePackageKernel(
         conditions.heatingEfficiencyFactor !== 1 ||
         conditions.coolingEfficiencyFactor !== 1
       ) {
-        flows.set(testInFlows);
+        flows[0] = testInFlows[0] ?? 0;
+        flows[1] = testInFlows[1] ?? 0;
         valueFlows(total, conditions);
         heatingUnits = state[0] ?? 0;
         coolingKwh = state[1] ?? 0;

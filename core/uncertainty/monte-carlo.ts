@@ -18,16 +18,15 @@ import {
   type DrawConditions,
   type PackageKernel,
 } from '../plan/kernel.ts';
-import type { Range } from '../schema.ts';
-import {
-  PERT_TABLE_STEPS,
-  pertQuantileTable,
-  rangeQuantile,
-  requireRange,
-  triangularQuantile,
-  type Distribution,
-} from './distributions.ts';
+import { requireRange, type Distribution } from './distributions.ts';
 import { Xoshiro128StarStar } from './random.ts';
+import {
+  conditionSamplers,
+  drawConditions,
+  rangeSampler,
+  sampleRange,
+  type RangeSampler,
+} from './samplers.ts';
 import {
   runSettings,
   type ResolvedVariations,
@@ -102,87 +101,31 @@ export function runDraws(
   firstDraw: number,
   samples: DrawSamples,
 ): void {
-  const { distribution, vary } = settings;
   kernel.ranges.forEach((range, index) =>
     requireRange(`measures.${kernel.measureIds[index]}.estimateCfm50`, range),
   );
-  // Local copies: under a CommonJS transform every read of an imported binding is a call.
-  const triangular = triangularQuantile;
-  const quantileOf = rangeQuantile;
   const count = kernel.ranges.length;
-  const lows = Float64Array.from(kernel.ranges, (range) => range.low);
-  const widths = Float64Array.from(kernel.ranges, (range) => range.high - range.low);
-  const tables = kernel.ranges.map((range) =>
-    distribution === 'pert' && range.high > range.low
-      ? pertQuantileTable((range.likely - range.low) / (range.high - range.low))
-      : null,
-  );
-  const steps = PERT_TABLE_STEPS;
-
-  const base = kernel.baseConditions;
-  const escalation = vary.escalationPlusMinusRate;
-  const efficiency = vary.efficiencyBelowRatingFraction;
-  const nFactor = vary.nFactorPlusMinusFraction;
-  const heatingEscalation =
-    escalation === null ? null : aroundPoint(base.heatingEscalationRate, escalation);
-  const electricityEscalation =
-    escalation === null ? null : aroundPoint(base.electricityEscalationRate, escalation);
-  const efficiencyRange = efficiency === null ? null : { low: 1 - efficiency, likely: 1, high: 1 };
-  const nRange = nFactor === null ? null : { low: 1 - nFactor, likely: 1, high: 1 + nFactor };
+  const samplers = kernel.ranges.map((range) => rangeSampler(settings.distribution, range));
+  const varied = conditionSamplers(kernel, settings);
+  const conditionsVary = Object.values(varied).some((sampler) => sampler !== null);
 
   const random = new Xoshiro128StarStar();
   const reductions = new Float64Array(count);
-  const conditions: DrawConditions = { ...base };
+  const conditions: DrawConditions = { ...kernel.baseConditions };
   const figures = emptyFigures();
   const fractions = new Float64Array(CONDITION_SLOTS);
   const drawCount = samples.npvUsd.length;
   for (let offset = 0; offset < drawCount; offset += 1) {
     random.reseed(settings.seed, settings.stream, firstDraw + offset);
     for (let index = 0; index < count; index += 1) {
-      const fraction = random.nextFraction();
-      const width = widths[index] ?? 0;
-      const table = tables[index];
-      if (!(width > 0)) {
-        reductions[index] = kernel.ranges[index]?.likely ?? 0;
-      } else if (table) {
-        const position = fraction * steps;
-        const cell = Math.min(steps - 1, Math.floor(position));
-        const lower = table[cell] ?? 0;
-        reductions[index] =
-          (lows[index] ?? 0) +
-          width * (lower + (position - cell) * ((table[cell + 1] ?? 1) - lower));
-      } else {
-        reductions[index] = triangular(kernel.ranges[index] as Range, fraction);
-      }
+      reductions[index] = sampleRange(samplers[index] as RangeSampler, random.nextFraction());
     }
-    // The conditions always take the next numbers, so varying more leaves the measures alone.
-    for (let slot = 0; slot < CONDITION_SLOTS; slot += 1) fractions[slot] = random.nextFraction();
-    if (heatingEscalation && electricityEscalation) {
-      conditions.heatingEscalationRate = quantileOf(
-        distribution,
-        heatingEscalation,
-        fractions[0] ?? 0,
-      );
-      conditions.electricityEscalationRate = quantileOf(
-        distribution,
-        electricityEscalation,
-        fractions[1] ?? 0,
-      );
+    // The conditions always take the next numbers, so varying more leaves the measures alone;
+    // when none varies, nothing reads them.
+    if (conditionsVary) {
+      for (let slot = 0; slot < CONDITION_SLOTS; slot += 1) fractions[slot] = random.nextFraction();
+      drawConditions(varied, fractions, conditions);
     }
-    if (efficiencyRange) {
-      conditions.heatingEfficiencyFactor = quantileOf(
-        distribution,
-        efficiencyRange,
-        fractions[2] ?? 0,
-      );
-      conditions.coolingEfficiencyFactor = quantileOf(
-        distribution,
-        efficiencyRange,
-        fractions[3] ?? 0,
-      );
-    }
-    if (nRange)
-      conditions.infiltrationDivisor = quantileOf(distribution, nRange, fractions[4] ?? 0);
     kernel.evaluate(reductions, conditions, figures);
     samples.cfm50After[offset] = figures.cfm50After;
     samples.annualSavingsUsd[offset] = figures.annualSavingsUsd;
@@ -190,10 +133,6 @@ export function runDraws(
     samples.sir[offset] = figures.sir;
     samples.fanAdded[offset] = figures.fanAdded ? 1 : 0;
   }
-}
-
-function aroundPoint(point: number, plusMinus: number): Range {
-  return { low: point - plusMinus, likely: point, high: point + plusMinus };
 }
 
 /** The summary of a run's samples. */
@@ -242,6 +181,7 @@ export function summarizeSamples(
  * @param options.seed - whole number from 0 to 2^32 − 1
  * @param options.distribution - 'pert' (default) or 'triangular'
  * @param options.vary - escalation, efficiency and N variations (each off unless asked)
+ * @param options.histogramBins - bins of each histogram (20 by default; 0 for none)
  * @returns P10 / P50 / P90 and mean of CFM50 after, annual savings and NPV, the chance the
  *   package SIR is at least 1, and histograms of NPV and annual savings
  * @throws InputError naming the option at fault
@@ -253,7 +193,23 @@ export function packageUncertainty(
   options: UncertaintyOptions,
 ): PackageUncertainty {
   const settings = runSettings(options);
-  const kernel = compilePackageKernel(evaluation);
+  return runKernel(compilePackageKernel(evaluation), settings);
+}
+
+/**
+ * The uncertainty of a compiled package kernel: `packageUncertainty` without the evaluation
+ * (a portfolio compiles its homes' kernels from their sequenced measures).
+ *
+ * @throws InputError naming the option at fault
+ */
+export function kernelUncertainty(
+  kernel: PackageKernel,
+  options: UncertaintyOptions,
+): PackageUncertainty {
+  return runKernel(kernel, runSettings(options));
+}
+
+function runKernel(kernel: PackageKernel, settings: RunSettings): PackageUncertainty {
   const samples = scratchSamples(settings.draws);
   runDraws(kernel, settings, 0, samples);
   return summarizeSamples(kernel, settings, samples);

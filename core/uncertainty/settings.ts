@@ -52,7 +52,10 @@ export interface UncertaintyOptions {
   vary?: VariationOptions;
   /** Which stream of the seed: a home's place in a portfolio (0 by default). */
   stream?: number;
-  /** Bins of each histogram (20 by default). */
+  /**
+   * Bins of each histogram (20 by default); 0 for none (empty edges and counts), as a
+   * portfolio that keeps only the percentiles needs.
+   */
   histogramBins?: number;
 }
 
@@ -151,7 +154,7 @@ export function runSettings(options: UncertaintyOptions): RunSettings {
     histogramBins: requireWhole(
       'histogramBins',
       options.histogramBins ?? DEFAULT_HISTOGRAM_BINS,
-      1,
+      0,
       1000,
     ),
   };

@@ -2,10 +2,13 @@
  * How fast the uncertainty engine runs:
  * - 10,000 draws of a 20-measure home's package (a demo home with measures of the library's
  *   types added, one home per infiltration method); target under 100 ms;
- * - a 10,000-home portfolio with 1,000 draws each on 2 worker threads (evaluating each home
- *   too); target under 5 s, and the engine's draws within 2× of a minimal reference kernel
- *   of the same arithmetic written below (bare Float64Arrays, PERT from the same inverse-CDF
- *   tables, the same generator), timed on one thread each.
+ * - a 10,000-home portfolio with 1,000 draws each on 2 worker threads (planning each home
+ *   too, and keeping the percentiles: no histograms); target under 5 s, and the engine's draws
+ *   within 2× of a minimal reference kernel of the same arithmetic written below (bare
+ *   Float64Arrays, PERT from the same inverse-CDF tables, the same generator), timed on one
+ *   thread each. The same portfolio on 1 worker shows how the second one scales; the process's
+ *   CPU time and the workers' own thread CPU time beside the wall clock show how much of the
+ *   machine the run had (other work shares its 2 cores).
  * Prints figures and their ratios; asserts nothing. Run with
  * `tsx test/bench/uncertainty.bench.ts`.
  *
@@ -24,6 +27,7 @@ import { DEFAULT_FAN_COST_USD } from '../../core/plan/ventilation-fan.ts';
 import { LEAK_LOCATIONS, type HomeFileInput } from '../../core/schema.ts';
 import { pertQuantileTable, PERT_TABLE_STEPS } from '../../core/uncertainty/distributions.ts';
 import { packageUncertainty } from '../../core/uncertainty/monte-carlo.ts';
+import { homePackageOf } from '../../core/uncertainty/portfolio-home.ts';
 import { DEMO_HOMES } from '../../db/demo/alder-creek.ts';
 import { openUncertaintyPool } from '../../electron/uncertainty-pool.ts';
 
@@ -36,6 +40,9 @@ const PORTFOLIO_DRAWS = 1_000;
 const PORTFOLIO_TARGET_S = 5;
 const PORTFOLIO_WORKERS = 2;
 const SEED = 20_261_201;
+/** A portfolio's run: its percentiles, no histograms. */
+const PORTFOLIO_OPTIONS = { draws: PORTFOLIO_DRAWS, seed: SEED, histogramBins: 0 };
+
 /** An invented labour rate for the bench home's added measures. */
 const BENCH_LABOR_RATE_USD_PER_HOUR = 58;
 
@@ -334,9 +341,12 @@ async function portfolioBench(): Promise<void> {
     `\nPortfolio: ${PORTFOLIO_HOMES.toLocaleString('en-US')} homes × ${PORTFOLIO_DRAWS.toLocaleString('en-US')} draws (PERT)`,
   );
 
-  // Home by home, as a worker goes: evaluate, then the engine's draws, then the reference
-  // kernel's on the same package; each timed on its own, nothing kept but the figures.
+  // Home by home: evaluate (as a single home is), plan as the pool's workers do, then the
+  // engine's draws, then the reference kernel's on the same package; each timed on its own,
+  // nothing kept but the figures. A portfolio keeps only the percentiles, so the engine draws
+  // no histograms here, as the reference draws none.
   let evaluateS = 0;
+  let planS = 0;
   let engineS = 0;
   let referenceS = 0;
   let packagedMeasures = 0;
@@ -345,11 +355,13 @@ async function portfolioBench(): Promise<void> {
     let started = performance.now();
     const evaluation = evaluateHome(home);
     evaluateS += (performance.now() - started) / 1000;
+    started = performance.now();
+    homePackageOf(home);
+    planS += (performance.now() - started) / 1000;
     packagedMeasures += evaluation.plan.entries.filter((entry) => entry.included).length;
     started = performance.now();
     const engineMean = packageUncertainty(evaluation, {
-      draws: PORTFOLIO_DRAWS,
-      seed: SEED,
+      ...PORTFOLIO_OPTIONS,
       stream: index,
     }).npvUsd.mean;
     engineS += (performance.now() - started) / 1000;
@@ -360,42 +372,74 @@ async function portfolioBench(): Promise<void> {
     largestGap = Math.max(largestGap, Math.abs(engineMean - referenceMean));
   });
 
-  // A pool is opened once and kept: its start (loading the TypeScript in each worker) is timed
-  // apart, with a small warm-up run, from the portfolio's run.
-  let started = performance.now();
-  const pool = openUncertaintyPool({ workers: PORTFOLIO_WORKERS });
-  await pool.run({
-    homes: homes.slice(0, 4 * PORTFOLIO_WORKERS),
-    options: { draws: 10, seed: SEED },
-  });
-  const poolStartS = (performance.now() - started) / 1000;
-  started = performance.now();
-  const results = await pool.run({ homes, options: { draws: PORTFOLIO_DRAWS, seed: SEED } });
-  const poolS = (performance.now() - started) / 1000;
-  const timing = pool.lastRunTiming;
-  await pool.close();
-  const failed = results.filter((result) => !result.ok).length;
-
   console.log(
-    `  ${(packagedMeasures / PORTFOLIO_HOMES).toFixed(1)} package measures a home on average; ${failed} homes failed`,
+    `  ${(packagedMeasures / PORTFOLIO_HOMES).toFixed(1)} package measures a home on average`,
   );
-  console.log(`  evaluating the homes (plans), one thread: ${evaluateS.toFixed(2)} s`);
+  console.log(
+    `  one thread: evaluating the homes (evaluateHome) ${evaluateS.toFixed(2)} s; planning them as ` +
+      `the workers do (homePackageOf, the same packages) ${planS.toFixed(2)} s, ` +
+      `${(evaluateS / planS).toFixed(1)} times as fast`,
+  );
   console.log(`  engine draws and summaries, one thread: ${engineS.toFixed(2)} s`);
   console.log(
     `  reference kernel, one thread: ${referenceS.toFixed(2)} s; engine ÷ reference ${(engineS / referenceS).toFixed(2)} (target ≤ 2); ` +
       `largest gap between their mean NPVs $${largestGap.toExponential(2)}`,
   );
+
+  const two = await poolRun(homes, PORTFOLIO_WORKERS);
+  const one = await poolRun(homes, 1);
   console.log(
-    `  pool of ${PORTFOLIO_WORKERS} workers, evaluating and drawing every home: ${poolS.toFixed(2)} s ` +
-      `(the pool's start and warm-up before it ${poolStartS.toFixed(2)} s); ` +
-      `target < ${PORTFOLIO_TARGET_S} s; ratio ${(poolS / PORTFOLIO_TARGET_S).toFixed(2)} of target`,
+    `  pool of ${PORTFOLIO_WORKERS} workers, planning and drawing every home: ${two.wallS.toFixed(2)} s ` +
+      `(the pool's start and warm-up before it ${two.startS.toFixed(2)} s); ` +
+      `target < ${PORTFOLIO_TARGET_S} s; ratio ${(two.wallS / PORTFOLIO_TARGET_S).toFixed(2)} of target; ` +
+      `${two.failed} homes failed`,
   );
-  const drawsOnTwoS = timing.drawMs / 1000 / PORTFOLIO_WORKERS;
   console.log(
-    `  the workers' own clocks: evaluating ${(timing.evaluateMs / 1000).toFixed(2)} s, drawing ${(timing.drawMs / 1000).toFixed(2)} s ` +
-      `summed over ${PORTFOLIO_WORKERS} workers; drawing per worker ${drawsOnTwoS.toFixed(2)} s, ` +
-      `ratio ${(drawsOnTwoS / PORTFOLIO_TARGET_S).toFixed(2)} of the ${PORTFOLIO_TARGET_S} s target`,
+    `  pool of 1 worker: ${one.wallS.toFixed(2)} s; ${PORTFOLIO_WORKERS} workers ran ` +
+      `${(one.wallS / two.wallS).toFixed(2)} times as fast`,
   );
+  for (const [label, run] of [
+    [`${PORTFOLIO_WORKERS} workers`, two],
+    ['1 worker', one],
+  ] as const) {
+    const threadCpu =
+      run.workerCpuS === null
+        ? 'their threads’ CPU time unknown here'
+        : `their threads had ${run.workerCpuS.toFixed(2)} s of CPU in ${(run.wallS * run.workers).toFixed(2)} s ` +
+          `(${((100 * run.workerCpuS) / (run.wallS * run.workers)).toFixed(0)} %: the rest they waited for a core)`;
+    console.log(
+      `  ${label}: this process used ${run.processCpuS.toFixed(2)} s of CPU, ` +
+        `${(run.processCpuS / run.wallS).toFixed(2)} cores on average; ${threadCpu}; ` +
+        `their own clocks: planning ${run.planS.toFixed(2)} s, drawing ${run.drawS.toFixed(2)} s summed`,
+    );
+  }
+}
+
+/** A portfolio's homes on a fresh pool of `workers`, timed after the pool's start and warm-up. */
+async function poolRun(homes: readonly HomeFileInput[], workers: number) {
+  // A pool is opened once and kept: its start (loading the TypeScript in each worker) is timed
+  // apart, with a small warm-up run, from the portfolio's run.
+  let started = performance.now();
+  const pool = openUncertaintyPool({ workers });
+  await pool.run({ homes: homes.slice(0, 4 * workers), options: { draws: 10, seed: SEED } });
+  const startS = (performance.now() - started) / 1000;
+  const cpuBefore = process.cpuUsage();
+  started = performance.now();
+  const results = await pool.run({ homes, options: PORTFOLIO_OPTIONS });
+  const wallS = (performance.now() - started) / 1000;
+  const cpu = process.cpuUsage(cpuBefore);
+  const timing = pool.lastRunTiming;
+  await pool.close();
+  return {
+    workers,
+    startS,
+    wallS,
+    processCpuS: (cpu.user + cpu.system) / 1e6,
+    workerCpuS: timing.cpuMs === null ? null : timing.cpuMs / 1000,
+    planS: timing.evaluateMs / 1000,
+    drawS: timing.drawMs / 1000,
+    failed: results.filter((result) => !result.ok).length,
+  };
 }
 
 const [load1] = loadavg();
@@ -404,3 +448,4 @@ console.log(
 );
 oneHomeBench();
 await portfolioBench();
+console.log(`Load average at the end ${loadavg()[0]?.toFixed(2)}.`);

@@ -8,15 +8,30 @@
  * (Excel; Hyndman–Fan definition 7, as numpy's default) and a hand case.
  */
 import * as formula from '@formulajs/formulajs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { InputError } from '../../core/errors.ts';
 import { evaluateHome, reportOf, type Evaluation } from '../../core/evaluate.ts';
 import {
+  aim2ShelterFactor,
+  aim2StackFactor,
+  aim2WindFactor,
+} from '../../core/infiltration/aim2.ts';
+import { lookupOf, MEASURE_LIBRARY } from '../../core/measure-library.ts';
+import {
+  compileMeasuresKernel,
   compilePackageKernel,
   emptyFigures,
   escalatedFactorFloat,
+  hypotOfTwo,
 } from '../../core/plan/kernel.ts';
 import { escalatedUniformPresentValueFactor } from '../../core/economics/index.ts';
-import { aim2Flows } from '../../core/plan/kernel-aim2.ts';
+import {
+  aim2Flows,
+  shelterFunction,
+  stackFactorFunction,
+  windFactorFunction,
+} from '../../core/plan/kernel-aim2.ts';
 import { buildPriceBook } from '../../core/plan/prices.ts';
 import { applyMeasure, stateAfter, stateOf } from '../../core/plan/step.ts';
 import { ventilationAfterPackage } from '../../core/plan/ventilation-fan.ts';
@@ -26,12 +41,14 @@ import {
   triangularQuantile,
   triangularVariance,
 } from '../../core/uncertainty/distributions.ts';
-import { packageUncertainty } from '../../core/uncertainty/monte-carlo.ts';
+import { kernelUncertainty, packageUncertainty } from '../../core/uncertainty/monte-carlo.ts';
+import { homePackageOf } from '../../core/uncertainty/portfolio-home.ts';
 import { Xoshiro128StarStar } from '../../core/uncertainty/random.ts';
-import { histogramOf, quantileSorted } from '../../core/uncertainty/summary.ts';
+import { histogramOf, quantileSorted, spreadOf } from '../../core/uncertainty/summary.ts';
 import { DEMO_HOMES } from '../../db/demo/alder-creek.ts';
 import { validBaseHome } from '../_lib/base-home.ts';
 import { expectInputError } from '../_lib/expect-input-error.ts';
+import { homeArbitrary } from '../_lib/home-arbitrary.ts';
 
 function reference(result: number | Error): number {
   if (result instanceof Error) throw new Error(`formulajs returned ${result.message}`);
@@ -253,6 +270,82 @@ describe('AIM-2 flows of the kernel', () => {
       }
     }
   });
+
+  it('take the stack, wind and shelter factors of the model to the last bit, every foundation, with and without a flue', () => {
+    const random = new Xoshiro128StarStar(23, 0, 0);
+    for (let trial = 0; trial < 3000; trial += 1) {
+      const n = 0.5 + 0.3 * random.nextFraction();
+      const heightFt = 8 + 20 * random.nextFraction();
+      const flueHeightFt = trial % 3 === 0 ? undefined : heightFt * (1 + 3 * random.nextFraction());
+      // Leakage by location (the flue empty in every fifth trial), as the kernel forms shares.
+      const parts = [0, 1, 2, 3].map((location) =>
+        location === 3 && trial % 5 === 0 ? 0 : 1000 * random.nextFraction(),
+      );
+      const total = parts.reduce((sum, part) => sum + part, 0);
+      const [ceiling, , floor, flue] = parts.map((part) => part / total) as number[];
+      const shares = {
+        exponentN: n,
+        ceilingShare: ceiling ?? 0,
+        floorShare: floor ?? 0,
+        flueShare: flue ?? 0,
+      };
+      const r = shares.ceilingShare + shares.floorShare;
+      const x = shares.ceilingShare - shares.floorShare;
+      const y = shares.flueShare;
+      expect(stackFactorFunction(n, flueHeightFt, heightFt)(r, x, y)).toBe(
+        aim2StackFactor({
+          ...shares,
+          flueHeightRatio: flueHeightFt === undefined ? undefined : flueHeightFt / heightFt,
+        }),
+      );
+      for (const foundation of ['basement', 'slab', 'crawlspace'] as const) {
+        expect(windFactorFunction(n, foundation)(r, x, y)).toBe(
+          aim2WindFactor({ ...shares, foundation }),
+        );
+      }
+      const shelterClass = (1 + (trial % 5)) as 1 | 2 | 3 | 4 | 5;
+      expect(shelterFunction(shelterClass)(y)).toBe(
+        aim2ShelterFactor({ shelterClass, flueShare: y }),
+      );
+    }
+    expectInputError(
+      () => windFactorFunction(0.65, 'stilts' as 'slab')(0.5, 0.1, 0),
+      'foundation',
+      /expected "basement", "slab" or "crawlspace"/,
+    );
+  });
+});
+
+describe('two-number hypot of the kernel', () => {
+  it('equals Math.hypot to the last bit: random magnitudes, near-equal pairs, zeros, infinities, NaN', () => {
+    const specials = [
+      0,
+      -0,
+      1,
+      -1,
+      5e-324,
+      2 ** -1022,
+      1.7976931348623157e308,
+      Infinity,
+      -Infinity,
+      NaN,
+    ];
+    for (const a of specials)
+      for (const b of specials) expect(hypotOfTwo(a, b)).toBe(Math.hypot(a, b));
+    const random = new Xoshiro128StarStar(31, 0, 0);
+    const mismatches: [number, number][] = [];
+    for (let trial = 0; trial < 200_000; trial += 1) {
+      const exponent = Math.floor(random.nextFraction() * 600) - 300;
+      const spread = trial % 3 === 0 ? Math.floor(random.nextFraction() * 10) - 5 : 0;
+      const a = (random.nextFraction() - 0.2) * 10 ** exponent;
+      const b =
+        trial % 7 === 0
+          ? a * (1 + 1e-15)
+          : (random.nextFraction() - 0.2) * 10 ** (spread === 0 ? exponent - 2 : exponent + spread);
+      if (!Object.is(hypotOfTwo(a, b), Math.hypot(a, b))) mismatches.push([a, b]);
+    }
+    expect(mismatches).toEqual([]);
+  });
 });
 
 describe('quantiles', () => {
@@ -319,6 +412,47 @@ describe('quantiles', () => {
     expect(histogram.edges).toEqual([0, 2, 4, 6, 8, 10]);
     expect(histogram.counts).toEqual([2, 2, 2, 2, 2]);
     expect(histogramOf(Float64Array.from([3, 3]), 5)).toEqual({ edges: [3, 3], counts: [2] });
+  });
+
+  it('by selection equal those of a sorted copy to the last bit: ties, signed zeros, infinities, NaN', () => {
+    const random = new Xoshiro128StarStar(41, 0, 0);
+    const kinds: (() => number)[] = [
+      () => random.nextFraction() * 1000 - 200,
+      () => Math.floor(random.nextFraction() * 3) - 1,
+      () => [0, -0, 1, -1][Math.floor(random.nextFraction() * 4)] ?? 0,
+      () => (random.nextFraction() < 0.5 ? -0 : 0),
+      () => (random.nextFraction() < 0.1 ? Infinity : random.nextFraction()),
+      () => (random.nextFraction() - 0.5) * 3.5 * 1e308,
+      () => random.nextFraction() * 2e-323,
+      () => (random.nextFraction() < 0.9 ? 7 : random.nextFraction()),
+      () => (random.nextFraction() < 0.05 ? NaN : random.nextFraction()),
+    ];
+    for (let trial = 0; trial < 3000; trial += 1) {
+      const size = 1 + Math.floor(random.nextFraction() * (trial % 10 === 0 ? 2500 : 40));
+      const kind = kinds[trial % kinds.length] as () => number;
+      const values = Float64Array.from({ length: size }, kind);
+      if (trial % 11 === 0) values.sort();
+      const unchanged = Float64Array.from(values);
+      const spread = spreadOf(values);
+      const sorted = Float64Array.from(values).sort();
+      expect(spread.p10).toBe(quantileSorted(sorted, 0.1));
+      expect(spread.p50).toBe(quantileSorted(sorted, 0.5));
+      expect(spread.p90).toBe(quantileSorted(sorted, 0.9));
+      expect(values).toEqual(unchanged);
+    }
+  });
+
+  it('come with no histograms when none are asked for, and the same spreads', () => {
+    const evaluation = evaluateHome(validBaseHome());
+    const options = { draws: 1500, seed: 9, vary: { nFactor: true } };
+    const withHistograms = packageUncertainty(evaluation, options);
+    const without = packageUncertainty(evaluation, { ...options, histogramBins: 0 });
+    expect(without.histograms).toEqual({
+      npvUsd: { edges: [], counts: [] },
+      annualSavingsUsd: { edges: [], counts: [] },
+    });
+    expect({ ...without, histograms: null }).toEqual({ ...withHistograms, histograms: null });
+    expect(histogramOf(Float64Array.from([1, 2, 3]), 0)).toEqual({ edges: [], counts: [] });
   });
 });
 
@@ -427,5 +561,85 @@ describe('packageUncertainty', () => {
       'vary.escalation.plusMinusRate',
       /from 0 to 0.1/,
     );
+  });
+});
+
+/** What a run gives: its value, or the error it throws (message and field). */
+function outcomeOf<T>(run: () => T): { value: T } | { error: string; field: string | null } {
+  try {
+    return { value: run() };
+  } catch (error) {
+    return error instanceof InputError
+      ? { error: error.message, field: error.field }
+      : { error: String(error), field: null };
+  }
+}
+
+describe('a portfolio home', () => {
+  const homes = fc.sample(homeArbitrary({ measureCount: { min: 1, max: 8 } }), {
+    seed: 17,
+    numRuns: 60,
+  });
+  // A project's library: every type's leakage area per unit half as large again.
+  const projectLibrary = lookupOf(
+    MEASURE_LIBRARY.map((type) => {
+      const { low, likely, high } = type.leakageAreaIn2PerUnit;
+      return {
+        ...type,
+        leakageAreaIn2PerUnit: { low: low * 1.5, likely: likely * 1.5, high: high * 1.5 },
+      };
+    }),
+  );
+  const variants = homes.flatMap((home, index) => {
+    const noElectricity = structuredClone(home);
+    delete (noElectricity.prices as Record<string, unknown>).electricity;
+    const badTest = structuredClone(home);
+    if (index % 6 === 0) badTest.leakageTest = { cfm50: -5 };
+    return [
+      { home, library: undefined },
+      { home: noElectricity, library: undefined },
+      { home, library: projectLibrary },
+      { home: badTest, library: undefined },
+    ];
+  });
+
+  it('gets the package evaluateHome plans, or its error, for generated and broken homes', () => {
+    let planned = 0;
+    let refused = 0;
+    const options = { draws: 60, seed: 5, vary: { efficiency: true } };
+    variants.forEach(({ home, library }, stream) => {
+      const settings = library ? { library } : {};
+      const expected = outcomeOf(() =>
+        packageUncertainty(evaluateHome(home, settings), { ...options, stream }),
+      );
+      const got = outcomeOf(() =>
+        kernelUncertainty(compileMeasuresKernel(homePackageOf(home, settings)), {
+          ...options,
+          stream,
+        }),
+      );
+      expect(got).toEqual(expected);
+      if ('value' in expected) planned += 1;
+      else refused += 1;
+    });
+    // Both kinds are met: packages planned, and refusals for each broken kind.
+    expect(planned).toBeGreaterThan(60);
+    expect(refused).toBeGreaterThan(20);
+  });
+
+  it('meets the cases its checks are for: a refusal only the plan money makes, a home planned without an electricity price', () => {
+    const refusals = new Set<string>();
+    let plannedWithoutElectricity = 0;
+    for (const { home, library } of variants) {
+      const got = outcomeOf(() => homePackageOf(home, library ? { library } : {}));
+      if ('error' in got) refusals.add(got.error);
+      else if (!('electricity' in home.prices)) plannedWithoutElectricity += 1;
+    }
+    // The price book's annualWorth asks for it when a step's savings include electricity.
+    expect(refusals).toContain(
+      'prices.electricity: is required for cooling and ventilation fans: expected { usdPerUnit } per kWh',
+    );
+    expect(refusals).toContain('leakageTest.cfm50: expected a number greater than 0, got -5');
+    expect(plannedWithoutElectricity).toBeGreaterThan(0);
   });
 });

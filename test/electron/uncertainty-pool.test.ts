@@ -1,8 +1,9 @@
 /**
  * The uncertainty pool on real worker threads: a portfolio's figures are the same on one
- * worker and on two, and equal to running each home in this thread with its place in the
- * list as its stream. A home that does not parse gets its error, naming the field, and the
- * others still run.
+ * worker and on two, in fixed and in shrinking batches, and equal to running each home in
+ * this thread (`evaluateHome`, then `packageUncertainty`) with its place in the list as its
+ * stream. A home that does not parse gets its error, naming the field, and the others still
+ * run.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluateHome } from '../../core/evaluate.ts';
@@ -49,6 +50,29 @@ describe('uncertainty pool', () => {
         ok: true,
         value: packageUncertainty(evaluateHome(home), { ...OPTIONS, stream: index }),
       });
+    });
+  });
+
+  it('shares a longer portfolio in shrinking batches with the same figures, histograms only when asked', async () => {
+    const homes: unknown[] = Array.from({ length: 8 }, () => HOMES).flat();
+    const options = { draws: 50, seed: 3 };
+    const shrinking = await two.run({ homes, options });
+    const fixed = await portfolioUncertainty({ homes, options, batchHomes: 7 }, { workers: 1 });
+    expect(shrinking).toEqual(fixed);
+    const timing = two.lastRunTiming;
+    expect(timing.evaluateMs).toBeGreaterThan(0);
+    expect(timing.drawMs).toBeGreaterThan(0);
+    // Linux tells each thread's CPU time (proc(5)); elsewhere the pool says it does not know.
+    if (process.platform === 'linux') expect(timing.cpuMs).toBeGreaterThanOrEqual(0);
+    else expect(timing.cpuMs).toBeNull();
+
+    const bare = await two.run({ homes, options: { ...options, histogramBins: 0 } });
+    bare.forEach((result, index) => {
+      const full = shrinking[index] as HomeUncertainty;
+      expect(result.ok).toBe(full.ok);
+      if (!result.ok || !full.ok) return;
+      expect(result.value.histograms.npvUsd.counts).toEqual([]);
+      expect({ ...result.value, histograms: null }).toEqual({ ...full.value, histograms: null });
     });
   });
 

@@ -1,0 +1,204 @@
+/**
+ * A portfolio's home as its uncertainty run needs it: the parsed home, its model and its
+ * package's measures in the order applied. That is what `evaluateHome` gives the engine,
+ * without the parts of the plan a Monte Carlo run never reads: the Decimal money of every
+ * plan entry and of the package (worth, IRR, low and high totals, financing) and the notes.
+ * They take most of `evaluateHome`'s time (about 0.6 of 0.85 ms a demo home here), and a
+ * portfolio of 10,000 homes runs them 10,000 times.
+ *
+ * The result is the one `evaluateHome` gives, errors included:
+ * - the steps up to the package are `evaluateHome`'s and `planHome`'s own calls, in their
+ *   order (parse, fit, leak shares, model, prices, measures, `sequenceMeasures`), so the
+ *   package is the plan's;
+ * - every step the plan values beside them is valued here too (the package at its low and
+ *   high estimates, each left-out measure at its low and high after the package), and the
+ *   ventilation outcome and safety check are run as `evaluateHome` runs them;
+ * - what is left, the Decimal money, can refuse only a non-finite saving or a missing
+ *   electricity price, which are checked;
+ * - when anything here throws or a check fails, the home is evaluated in full, so the error
+ *   is the one `evaluateHome` throws first.
+ * test/core/uncertainty.test.ts holds it to `evaluateHome` on varied and broken homes.
+ */
+import { evaluateHome, fitOfTest, type EvaluateOptions, type Evaluation } from '../evaluate.ts';
+import {
+  assumedLeakShares,
+  buildHomeModel,
+  type HomeModel,
+  type LeakageByLocation,
+} from '../home-model.ts';
+import type { LeakageFit } from '../leakage.ts';
+import { SHIPPED_LIBRARY, type MeasureLookup } from '../measure-library.ts';
+import { estimateReductionCfm50, prepareMeasures, type PreparedMeasure } from '../measures.ts';
+import { buildPriceBook, type PriceBook } from '../plan/prices.ts';
+import { sequenceMeasures, type SequencedPlan } from '../plan/sequence.ts';
+import {
+  applyMeasure,
+  stateAfter,
+  stateOf,
+  type PlanState,
+  type StepOutcome,
+} from '../plan/step.ts';
+import { ventilationAfterPackage } from '../plan/ventilation-fan.ts';
+import { assessSafety } from '../safety.ts';
+import {
+  parseHomeFile,
+  type HomeFile,
+  type LeakLocation,
+  type LeakShares,
+  type Range,
+} from '../schema.ts';
+
+/** A home's package and what its kernel is compiled from. */
+export interface HomePackage {
+  home: HomeFile;
+  model: HomeModel;
+  /** The plan's included measures, in the order applied. */
+  measures: readonly PreparedMeasure[];
+}
+
+/**
+ * The package of a home file, as `evaluateHome` would plan it.
+ *
+ * @param input - a home file (parsed or raw JSON); raw input is validated first
+ * @param options.library - the measure library (the shipped one by default)
+ * @throws InputError as `evaluateHome` throws it
+ */
+export function homePackageOf(input: unknown, options: EvaluateOptions = {}): HomePackage {
+  let quick: HomePackage | null;
+  try {
+    quick = quickPackage(input, options);
+  } catch {
+    // The full evaluation throws its own first error.
+    quick = null;
+  }
+  return quick ?? packageOfEvaluation(evaluateHome(input, options));
+}
+
+/** The package of a full evaluation. */
+export function packageOfEvaluation(evaluation: Evaluation): HomePackage {
+  return {
+    home: evaluation.home,
+    model: evaluation.model,
+    measures: evaluation.plan.entries
+      .filter((entry) => entry.included)
+      .map((entry) => entry.step.measure),
+  };
+}
+
+/** The package without the plan's money, or null when the money might refuse the home. */
+function quickPackage(input: unknown, options: EvaluateOptions): HomePackage | null {
+  const library = options.library ?? SHIPPED_LIBRARY;
+  const home = parseHomeFile(input);
+  const fit = fitOfTest(home.leakageTest);
+  const model = buildHomeModel(home, fit, home.leakShares ?? assumedSharesFor(home, fit, library));
+  const prices = buildPriceBook(home);
+  const measures = prepareMeasures(home.measures, {
+    exponentN: fit.exponentN,
+    testIn: model.testIn,
+    library,
+  });
+  const start = stateOf(model, model.testIn);
+  const sequenced = sequenceMeasures({
+    model,
+    prices,
+    measures,
+    startState: start,
+    ranking: home.economics.ranking ?? 'sir',
+  });
+  const included = sequenced.included.map((step) => step.measure);
+  const ranged = rangedSteps(model, start, sequenced);
+  const ventilation = ventilationAfterPackage({
+    model,
+    prices,
+    leakageAfter: sequenced.finalState.leakage,
+  });
+  assessSafety({
+    house: home.house,
+    heating: home.heating,
+    combustionAppliances: home.combustionAppliances ?? [],
+    plannedMeasures: included.map((measure) => ({
+      id: measure.id,
+      type: measure.type.id,
+      location: measure.location,
+    })),
+    leakage: {
+      cfm50Before: model.testInCfm50,
+      cfm50After: sequenced.included.at(-1)?.cfm50After ?? model.testInCfm50,
+      volumeFt3: home.house.conditionedVolumeFt3,
+    },
+    ventilation: {
+      requiredCfm: ventilation.requiredCfm,
+      fanNeedBeforeCfm: ventilation.fanCfmBefore,
+      fanNeedAfterCfm: ventilation.fanCfm,
+      existingFanCfm: ventilation.existingFanCfm,
+      fanAdded: ventilation.addedFan !== null,
+      infiltrationCreditTaken: ventilation.infiltrationCreditTaken,
+    },
+  });
+  const valued = [...sequenced.included, ...sequenced.excluded];
+  return moneyCannotRefuse(prices, valued, ranged) ? { home, model, measures: included } : null;
+}
+
+/**
+ * The steps `planHome` values at a low or high estimate: the package replayed at each, and
+ * every left-out measure at each after the package.
+ */
+function rangedSteps(model: HomeModel, start: PlanState, sequenced: SequencedPlan): StepOutcome[] {
+  const steps: StepOutcome[] = [];
+  for (const estimate of ['low', 'high'] as const satisfies readonly (keyof Range)[]) {
+    let state = start;
+    for (const step of sequenced.included) {
+      const outcome = applyMeasure(model, state, step.measure, estimate);
+      steps.push(outcome);
+      state = stateAfter(outcome);
+    }
+  }
+  for (const step of sequenced.excluded) {
+    steps.push(applyMeasure(model, sequenced.finalState, step.measure, 'low'));
+    steps.push(applyMeasure(model, sequenced.finalState, step.measure, 'high'));
+  }
+  return steps;
+}
+
+/**
+ * True when the plan's money cannot throw: each valued step's savings are finite (its worth
+ * reads them as finite Decimals), and without an electricity price no step saves or adds
+ * electricity (its worth would ask for the price). Rates, lives, costs and loan terms are
+ * held in range by the home file's schema.
+ */
+function moneyCannotRefuse(
+  prices: PriceBook,
+  valued: readonly StepOutcome[],
+  ranged: readonly StepOutcome[],
+): boolean {
+  const finite = valued.every(({ saved }) =>
+    [saved.heatingFuelUnits, saved.coolingKwh, saved.ventilationFanKwh, saved.siteMMBtu].every(
+      Number.isFinite,
+    ),
+  );
+  if (!finite) return false;
+  if (prices.electricity !== null) return true;
+  return [...valued, ...ranged].every(
+    ({ saved }) => saved.coolingKwh + saved.ventilationFanKwh === 0,
+  );
+}
+
+/**
+ * Leak shares for a home file that gives none, from the default split and its work scope:
+ * `evaluateHome`'s own rule (a private helper of core/evaluate.ts), step for step.
+ */
+function assumedSharesFor(home: HomeFile, fit: LeakageFit, library: MeasureLookup): LeakShares {
+  const expectedByLocation: Partial<Record<LeakLocation, number>> = {};
+  const noLocationNeeded: LeakageByLocation = { ceiling: 0, wall: 0, floor: 0, flue: 0 };
+  for (const measure of home.measures) {
+    const type = library.find(measure.type);
+    if (!type || measure.status === 'declined' || measure.shareOfLocation) continue;
+    const location = measure.location ?? type.location;
+    const { range } = estimateReductionCfm50(measure, type, {
+      exponentN: fit.exponentN,
+      testIn: noLocationNeeded,
+    });
+    expectedByLocation[location] = (expectedByLocation[location] ?? 0) + range.likely;
+  }
+  return assumedLeakShares({ cfm50: fit.cfm50, expectedByLocation });
+}

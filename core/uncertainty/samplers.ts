@@ -1,0 +1,101 @@
+/**
+ * How a draw turns its uniform numbers into values: each measure's range and each varied
+ * condition (fuel escalation, efficiency, N) gets a sampler once a run, with its PERT table
+ * found beforehand, so a draw looks nothing up. The values are `rangeQuantile`'s
+ * (distributions.ts): PERT from its table, interpolated linearly, or the triangular inverse
+ * CDF.
+ */
+import type { DrawConditions, PackageKernel } from '../plan/kernel.ts';
+import type { Range } from '../schema.ts';
+import { pertQuantileTable, triangularQuantile, type Distribution } from './distributions.ts';
+import type { RunSettings } from './settings.ts';
+
+/**
+ * How a draw turns its uniform number into a value of one range: the range's point when it
+ * has no width, its PERT table, or the triangular inverse CDF. Worked out once a run, so a
+ * draw looks nothing up.
+ */
+export interface RangeSampler {
+  range: Range;
+  low: number;
+  width: number;
+  /** The standardized PERT quantiles, or null when the range is a point or triangular. */
+  table: Float64Array | null;
+}
+
+export function rangeSampler(distribution: Distribution, range: Range): RangeSampler {
+  const width = range.high - range.low;
+  return {
+    range,
+    low: range.low,
+    width,
+    table:
+      distribution === 'pert' && width > 0
+        ? pertQuantileTable((range.likely - range.low) / width)
+        : null,
+  };
+}
+
+/**
+ * The value of a range at fraction u: `rangeQuantile` (PERT from its table, interpolated
+ * linearly, or triangular) with the table found beforehand.
+ */
+export function sampleRange(sampler: RangeSampler, fraction: number): number {
+  const { width, table } = sampler;
+  if (!(width > 0)) return sampler.range.likely;
+  if (table === null) return triangularQuantile(sampler.range, fraction);
+  const steps = table.length - 1;
+  const position = fraction * steps;
+  const cell = Math.min(steps - 1, Math.floor(position));
+  const lower = table[cell] ?? 0;
+  return sampler.low + width * (lower + (position - cell) * ((table[cell + 1] ?? 1) - lower));
+}
+
+/** The varied conditions' samplers, each null when that condition is not varied. */
+export interface ConditionSamplers {
+  heatingEscalation: RangeSampler | null;
+  electricityEscalation: RangeSampler | null;
+  efficiency: RangeSampler | null;
+  nFactor: RangeSampler | null;
+}
+
+export function conditionSamplers(kernel: PackageKernel, settings: RunSettings): ConditionSamplers {
+  const { distribution, vary } = settings;
+  const base = kernel.baseConditions;
+  const escalation = vary.escalationPlusMinusRate;
+  const efficiency = vary.efficiencyBelowRatingFraction;
+  const nFactor = vary.nFactorPlusMinusFraction;
+  const sampler = (range: Range | null) => (range ? rangeSampler(distribution, range) : null);
+  return {
+    heatingEscalation: sampler(
+      escalation === null ? null : aroundPoint(base.heatingEscalationRate, escalation),
+    ),
+    electricityEscalation: sampler(
+      escalation === null ? null : aroundPoint(base.electricityEscalationRate, escalation),
+    ),
+    efficiency: sampler(efficiency === null ? null : { low: 1 - efficiency, likely: 1, high: 1 }),
+    nFactor: sampler(nFactor === null ? null : { low: 1 - nFactor, likely: 1, high: 1 + nFactor }),
+  };
+}
+
+/** Sets a draw's conditions from its condition numbers (slots 0–4, always drawn). */
+export function drawConditions(
+  samplers: ConditionSamplers,
+  fractions: Float64Array,
+  conditions: DrawConditions,
+): void {
+  const { heatingEscalation, electricityEscalation, efficiency, nFactor } = samplers;
+  if (heatingEscalation && electricityEscalation) {
+    conditions.heatingEscalationRate = sampleRange(heatingEscalation, fractions[0] ?? 0);
+    conditions.electricityEscalationRate = sampleRange(electricityEscalation, fractions[1] ?? 0);
+  }
+  if (efficiency) {
+    conditions.heatingEfficiencyFactor = sampleRange(efficiency, fractions[2] ?? 0);
+    conditions.coolingEfficiencyFactor = sampleRange(efficiency, fractions[3] ?? 0);
+  }
+  if (nFactor) conditions.infiltrationDivisor = sampleRange(nFactor, fractions[4] ?? 0);
+}
+
+function aroundPoint(point: number, plusMinus: number): Range {
+  return { low: point - plusMinus, likely: point, high: point + plusMinus };
+}
