@@ -16,11 +16,20 @@ import {
   packageFigures,
   type BestPackageOptions,
 } from '../../core/plan/best-package.ts';
-import { totalCfm50 } from '../../core/home-model.ts';
+import Decimal from 'decimal.js';
+import { totalCfm50, type LeakageByLocation } from '../../core/home-model.ts';
+import { MEASURE_LIBRARY } from '../../core/measure-library.ts';
+import { buildEnergyCells, cellLowCfm50 } from '../../core/plan/best-package/energy-cells.ts';
+import { costCurve, type LiveMeasure } from '../../core/plan/best-package/remaining-measures.ts';
+import { compareCentRatios, stepCents } from '../../core/plan/best-package/step-cents.ts';
 import { buildPriceBook } from '../../core/plan/prices.ts';
 import { applyMeasure, stateAfter, stateOf } from '../../core/plan/step.ts';
 import { worthOfStep } from '../../core/plan/worth.ts';
-import type { HomeFileInput } from '../../core/schema.ts';
+import { LEAK_LOCATIONS, type HomeFileInput } from '../../core/schema.ts';
+import { FERNBANK_WAY } from '../../db/demo/homes/fernbank-way.ts';
+import { JUNIPER_HOLLOW } from '../../db/demo/homes/juniper-hollow.ts';
+import { LARCH_TERRACE } from '../../db/demo/homes/larch-terrace.ts';
+import { TANAGER_STREET } from '../../db/demo/homes/tanager-street.ts';
 import { expectInputError } from '../_lib/expect-input-error.ts';
 import { homeArbitrary } from '../_lib/home-arbitrary.ts';
 import { validBaseHome } from '../_lib/base-home.ts';
@@ -338,4 +347,270 @@ describe('best package: the condition behind the bounds', () => {
     expect(checked).toBeGreaterThan(300);
     expect(belowFloor).toBeGreaterThan(10);
   });
+});
+
+/** A seeded uniform [0, 1) generator (an LCG: the constants of Numerical Recipes). */
+function uniformFrom(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (Math.imul(state, 1_664_525) + 1_013_904_223) >>> 0;
+    return state / 2 ** 32;
+  };
+}
+
+/** A state of a home with this total, split as its test-in leakage is. */
+function scaledState(testIn: LeakageByLocation, testInCfm50: number, cfm50: number) {
+  const scale = cfm50 / testInCfm50;
+  return Object.fromEntries(
+    LEAK_LOCATIONS.map((location) => [location, testIn[location] * scale]),
+  ) as LeakageByLocation;
+}
+
+describe('best package: the facts the bounds rest on', () => {
+  it('each energy cell bounds the model’s own energy from below and its fall per CFM50 from above', () => {
+    // Checked against model.energyOf at states inside each cell (the table is built from the
+    // model's flows by its own arithmetic): (i) a year's heating and electricity dollars are
+    // at least the cell's low values; (ii) between two states of one cell they fall by at
+    // most the cell's slope bound per CFM50.
+    const next = uniformFrom(SEED);
+    let checked = 0;
+    for (const { home } of homes) {
+      if (!BOUNDED_METHODS.includes(home.infiltrationMethod)) continue;
+      const { model } = evaluateHome(home);
+      const prices = buildPriceBook(evaluateHome(home).home);
+      const cells = buildEnergyCells(model, prices, model.testInCfm50);
+      const dollars = (cfm50: number) => {
+        const energy = model.energyOf(scaledState(model.testIn, model.testInCfm50, cfm50));
+        return {
+          heating: energy.heatingFuelUnits * prices.heating.usdPerUnitFloat,
+          electricity:
+            (energy.coolingKwh + energy.ventilationFanKwh) *
+            (prices.electricity?.usdPerUnitFloat ?? 0),
+        };
+      };
+      for (let draw = 0; draw < 25; draw += 1) {
+        const index = Math.floor(next() * cells.count);
+        const lo = cellLowCfm50(cells, index);
+        const width = cells.widthCfm50;
+        const upper = lo + width * (0.01 + 0.99 * next());
+        const lower = lo + (upper - lo) * next() * 0.99;
+        const atUpper = dollars(upper);
+        const atLower = dollars(lower);
+        const tolerance = 1e-9 * (1 + atUpper.heating + atUpper.electricity);
+        expect(atLower.heating).toBeGreaterThanOrEqual(
+          (cells.heatingLowUsd[index] ?? 0) - tolerance,
+        );
+        expect(atLower.electricity).toBeGreaterThanOrEqual(
+          (cells.electricityLowUsd[index] ?? 0) - tolerance,
+        );
+        const removed = upper - lower;
+        expect(atUpper.heating - atLower.heating).toBeLessThanOrEqual(
+          (cells.heatingSlopeUsd[index] ?? 0) * removed + tolerance,
+        );
+        expect(atUpper.electricity - atLower.electricity).toBeLessThanOrEqual(
+          (cells.electricitySlopeUsd[index] ?? 0) * removed + tolerance,
+        );
+        checked += 1;
+      }
+    }
+    expect(checked).toBeGreaterThan(1000);
+  });
+
+  it('the least cost of removing L is at most that of every split of L within the limits', () => {
+    // Independent check: every split in whole CFM50 of a small case (sizes, location rooms
+    // and L whole numbers; such laminar limits have whole-number optima, so the least is
+    // reached too).
+    const next = uniformFrom(SEED + 1);
+    for (let trial = 0; trial < 200; trial += 1) {
+      const measures: LiveMeasure[] = [0, 1, 2, 3].map((index) => ({
+        index,
+        location: next() < 0.5 ? 'ceiling' : 'wall',
+        sizeCfm50: 1 + Math.floor(next() * 4),
+        costUsd: Math.round(next() * 500) / 10,
+        factors: { heating: 1, electricity: 1 },
+      }));
+      const leakage = {
+        ceiling: Math.floor(next() * 7),
+        wall: Math.floor(next() * 7),
+        floor: 0,
+        flue: 0,
+      };
+      const aboveFloor = Math.floor(next() * 12);
+      const curve = costCurve(leakage, aboveFloor, measures);
+      const leastOf = (removedCfm50: number) => {
+        let cost = 0;
+        let start = 0;
+        curve.lengthsCfm50.forEach((length, segment) => {
+          const taken = Math.min(length, Math.max(0, removedCfm50 - start));
+          cost += taken * (curve.ratesUsdPerCfm50[segment] ?? 0);
+          start += length;
+        });
+        return cost;
+      };
+      const bestBySplit = new Map<number, number>();
+      const sizes = measures.map((measure) => measure.sizeCfm50);
+      const split = (index: number, taken: number[]) => {
+        if (index === measures.length) {
+          const byLocation = (location: string) =>
+            taken.reduce(
+              (sum, part, at) => sum + (measures[at]?.location === location ? part : 0),
+              0,
+            );
+          const total = taken.reduce((sum, part) => sum + part, 0);
+          if (byLocation('ceiling') > leakage.ceiling || byLocation('wall') > leakage.wall) return;
+          if (total > aboveFloor) return;
+          const cost = taken.reduce(
+            (sum, part, at) => sum + (part * (measures[at]?.costUsd ?? 0)) / (sizes[at] ?? 1),
+            0,
+          );
+          bestBySplit.set(total, Math.min(bestBySplit.get(total) ?? Infinity, cost));
+          return;
+        }
+        for (let part = 0; part <= (sizes[index] ?? 0); part += 1)
+          split(index + 1, [...taken, part]);
+      };
+      split(0, []);
+      const reachable = Math.max(...bestBySplit.keys());
+      expect(curve.totalCfm50).toBeCloseTo(reachable, 9);
+      for (const [total, cost] of bestBySplit) {
+        expect(leastOf(total)).toBeLessThanOrEqual(cost + 1e-9);
+        expect(leastOf(total)).toBeCloseTo(cost, 9);
+      }
+    }
+  });
+
+  it('step cents equal the core’s Decimal worth of the step (core/plan/worth.ts)', () => {
+    const next = uniformFrom(SEED + 2);
+    let checked = 0;
+    for (const { home } of homes.slice(0, 120)) {
+      const evaluation = evaluateHome(home);
+      const { model } = evaluation;
+      const prices = buildPriceBook(evaluation.home);
+      let state = stateOf(model, model.testIn);
+      for (const measure of measuresInPlanOrder(evaluation).energy) {
+        const outcome = applyMeasure(model, state, measure);
+        const worth = worthOfStep(prices, outcome);
+        const cents = stepCents(prices, outcome, {
+          heating: prices.presentValueFloat(1, 0, measure.lifeYears),
+          electricity: prices.presentValueFloat(0, 1, measure.lifeYears),
+        });
+        expect(cents.annualCents).toBe(worth.annualSavingsUsd.times(100).toNumber());
+        expect(cents.pvCents).toBe(worth.pvSavingsUsd.times(100).toNumber());
+        checked += 1;
+        if (next() < 0.6) state = stateAfter(outcome);
+      }
+    }
+    expect(checked).toBeGreaterThan(400);
+  });
+
+  it('compares SIRs of whole cents as their Decimal quotients compare', () => {
+    const next = uniformFrom(SEED + 3);
+    const pairs: [number, number, number, number][] = [
+      [1, 2, 2, 4],
+      [-300, 7, -600, 14],
+      [10_000_001, 10_000_000, 10_000_000, 9_999_999],
+    ];
+    for (let draw = 0; draw < 500; draw += 1) {
+      const pick = () => Math.floor((next() - 0.2) * 1e6);
+      pairs.push([pick(), 1 + Math.floor(next() * 1e6), pick(), 1 + Math.floor(next() * 1e6)]);
+    }
+    for (const [pvA, costA, pvB, costB] of pairs) {
+      const expected = new Decimal(pvB).div(costB).cmp(new Decimal(pvA).div(costA));
+      expect(Math.sign(compareCentRatios(pvA, costA, pvB, costB))).toBe(expected);
+    }
+  });
+});
+
+/** A demo home with its measures planned and library measures added up to `count`. */
+function withLibraryMeasures(base: HomeFileInput, count: number): HomeFileInput {
+  const measures: HomeFileInput['measures'] = base.measures.map((measure) => ({
+    ...measure,
+    status: 'planned',
+    cost: { ...measure.cost, healthAndSafety: false },
+  }));
+  for (let index = 0; measures.length < count; index += 1) {
+    const type = MEASURE_LIBRARY[(index * 5 + 3) % MEASURE_LIBRARY.length];
+    if (type === undefined) break;
+    const units = 1 + (index % 6);
+    measures.push({
+      id: `added-${index + 1}`,
+      type: type.id,
+      byUnits: { units },
+      cost: {
+        materialsUsd: Math.round(type.defaultCost.materialsUsdPerUnit * units * 100) / 100,
+        laborHours: Math.round(type.defaultCost.laborHoursPerUnit * units * 100) / 100,
+        laborRateUsdPerHour: 55,
+      },
+    });
+  }
+  return { ...base, demo: false, measures: measures.slice(0, count) };
+}
+
+describe('best package: equals brute force on crowded demo homes', () => {
+  it('with measures crowding each location (saturation, fans, the flat bottom), 14 measures', () => {
+    // Demo homes as input only (the expected package is brute force's): one per infiltration
+    // method, each with library measures added until the locations run out of leakage.
+    const bases = [JUNIPER_HOLLOW, FERNBANK_WAY, TANAGER_STREET, LARCH_TERRACE];
+    const methods = new Set<string>();
+    for (const base of bases) {
+      const evaluation = evaluateHome(withLibraryMeasures(base, 14));
+      methods.add(evaluation.home.infiltrationMethod);
+      const packages = everyPackage(evaluation);
+      const energyCost = measuresInPlanOrder(evaluation).energy.reduce(
+        (total, measure) => total + measure.cost.totalUsdFloat,
+        0,
+      );
+      const half = Math.round(energyCost * 50) / 100;
+      const queries: BruteForceQuery[] = [
+        {
+          budgetUsd: half,
+          objective: 'npv',
+          everyMeasureSirAtLeastOne: false,
+          packageSirAtLeastOne: false,
+        },
+        {
+          budgetUsd: Infinity,
+          objective: 'npv',
+          everyMeasureSirAtLeastOne: false,
+          packageSirAtLeastOne: true,
+        },
+        {
+          budgetUsd: half,
+          objective: 'savings',
+          everyMeasureSirAtLeastOne: false,
+          packageSirAtLeastOne: true,
+        },
+        {
+          budgetUsd: Infinity,
+          objective: 'savings',
+          everyMeasureSirAtLeastOne: true,
+          packageSirAtLeastOne: false,
+        },
+        {
+          budgetUsd: Infinity,
+          objective: 'savings',
+          everyMeasureSirAtLeastOne: false,
+          packageSirAtLeastOne: false,
+        },
+        {
+          budgetUsd: half,
+          objective: 'sir',
+          everyMeasureSirAtLeastOne: false,
+          packageSirAtLeastOne: false,
+        },
+      ];
+      for (const query of queries) {
+        const expected = bestByBruteForce(packages, query);
+        const found = bestPackage(evaluation, optionsOf(query));
+        const context = `${base.name}, ${JSON.stringify(query)}`;
+        expect(found.measureIds, context).toEqual(expected.measureIds);
+        expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
+        expect(found.annualSavingsUsd.toFixed(2), context).toBe(
+          expected.annualSavingsUsd.toFixed(2),
+        );
+        expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
+      }
+    }
+    expect([...methods].sort()).toEqual(['aim2', 'ashrae622', 'lblBasic', 'nFactor']);
+  }, 120_000);
 });
