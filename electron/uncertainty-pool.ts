@@ -17,7 +17,12 @@ import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { InputError } from '../core/errors.ts';
 import type { MeasureType } from '../core/measure-library.ts';
-import { runSettings, type UncertaintyOptions } from '../core/uncertainty/monte-carlo.ts';
+import {
+  runSettings,
+  type FigureSpread,
+  type UncertaintyOptions,
+} from '../core/uncertainty/monte-carlo.ts';
+import { spreadOf } from '../core/uncertainty/summary.ts';
 import {
   POOL_WORKER_MARK,
   type HomeUncertainty,
@@ -43,6 +48,21 @@ export interface PortfolioRequest {
   libraryTypes?: readonly MeasureType[];
   /** Homes in every batch; by default 100, shrinking to 10 over the last batches. */
   batchHomes?: number;
+  /** Also add the homes up draw by draw: the program's range (`lastProgramRange`). */
+  programTotals?: boolean;
+}
+
+/**
+ * The program's range: the homes' figures added draw by draw (homes independent, each on its
+ * own stream), so its percentiles are those of the program's total, not sums of the homes'
+ * percentiles. Homes that could not be run add nothing.
+ */
+export interface ProgramRange {
+  draws: number;
+  seed: number;
+  homes: number;
+  annualSavingsUsd: FigureSpread;
+  npvUsd: FigureSpread;
 }
 
 export interface UncertaintyPool {
@@ -55,6 +75,8 @@ export interface UncertaintyPool {
    * each one's first batch to the end of its last (null where the system does not tell it).
    */
   readonly lastRunTiming: { evaluateMs: number; drawMs: number; cpuMs: number | null };
+  /** The last run's program range, when it asked for `programTotals`; else null. */
+  readonly lastProgramRange: ProgramRange | null;
   close(): Promise<void>;
 }
 
@@ -94,9 +116,14 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
   let busy = false;
   const lastRunTiming: UncertaintyPool['lastRunTiming'] = { evaluateMs: 0, drawMs: 0, cpuMs: null };
 
+  let lastProgramRange: ProgramRange | null = null;
+
   return {
     workers: count,
     lastRunTiming,
+    get lastProgramRange() {
+      return lastProgramRange;
+    },
     async run(request) {
       if (busy) throw new Error('the uncertainty pool is already running a portfolio');
       runSettings({ ...request.options, stream: 0 });
@@ -107,8 +134,14 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
           `expected a whole number of at least 1, got ${batchHomes}`,
         );
       }
-      const batches = batchesOf(request, count);
+      const batches = batchesOf(request, count).map((batch) =>
+        request.programTotals ? { ...batch, programTotals: true } : batch,
+      );
       const results = new Array<HomeUncertainty>(request.homes.length);
+      const draws = request.options.draws;
+      const savingsCents = new Float64Array(request.programTotals ? draws : 0);
+      const npvCents = new Float64Array(request.programTotals ? draws : 0);
+      lastProgramRange = null;
       busy = true;
       lastRunTiming.evaluateMs = 0;
       lastRunTiming.drawMs = 0;
@@ -128,6 +161,14 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
               next += 1;
               const done = await worker.run(batch);
               for (const result of done.results) results[result.index] = result;
+              if (done.totals) {
+                // Whole cents: exact sums, the same in any order of batches.
+                for (let draw = 0; draw < draws; draw += 1) {
+                  savingsCents[draw] =
+                    (savingsCents[draw] ?? 0) + (done.totals.annualSavingsCents[draw] ?? 0);
+                  npvCents[draw] = (npvCents[draw] ?? 0) + (done.totals.npvCents[draw] ?? 0);
+                }
+              }
               lastRunTiming.evaluateMs += done.evaluateMs;
               lastRunTiming.drawMs += done.drawMs;
               cpu.add(worker, done.threadCpuMs);
@@ -135,6 +176,16 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
           }),
         );
         lastRunTiming.cpuMs = cpu.totalMs();
+        if (request.programTotals) {
+          const toUsd = (cents: Float64Array) => cents.map((value) => value / 100);
+          lastProgramRange = {
+            draws,
+            seed: request.options.seed,
+            homes: results.filter((result) => result.ok).length,
+            annualSavingsUsd: spreadOf(toUsd(savingsCents)),
+            npvUsd: spreadOf(toUsd(npvCents)),
+          };
+        }
       } finally {
         busy = false;
       }

@@ -14,7 +14,12 @@ import { InputError } from '../core/errors.ts';
 import { lookupOf, type MeasureType } from '../core/measure-library.ts';
 import { compileMeasuresKernel } from '../core/plan/kernel.ts';
 import {
+  allocateSamples,
   kernelUncertainty,
+  runDraws,
+  runSettings,
+  summarizeSamples,
+  type DrawSamples,
   type PackageUncertainty,
   type UncertaintyOptions,
 } from '../core/uncertainty/monte-carlo.ts';
@@ -28,6 +33,18 @@ export interface UncertaintyBatch {
   options: Omit<UncertaintyOptions, 'stream'>;
   /** The project's measure library; the shipped one when absent. */
   libraryTypes?: readonly MeasureType[];
+  /** Add up the batch's homes draw by draw (the program's totals), in whole cents. */
+  programTotals?: boolean;
+}
+
+/**
+ * The batch's homes added draw by draw: entry k is the sum over the homes of draw k, each
+ * home's figure rounded to whole cents first. Sums of whole cents are exact in float64 (up to
+ * 2^53 cents), so the program's totals do not depend on how homes were batched or ordered.
+ */
+export interface DrawTotals {
+  annualSavingsCents: Float64Array;
+  npvCents: Float64Array;
 }
 
 /** One home's outcome: its figures, or why it could not be run. */
@@ -47,6 +64,14 @@ export interface UncertaintyBatchResult {
    * or waited for a core that other work held.
    */
   threadCpuMs: { before: number; after: number } | null;
+  /** With `programTotals`: the batch's draw-by-draw sums. */
+  totals?: DrawTotals;
+}
+
+function addCents(into: Float64Array, values: Float64Array): void {
+  for (let draw = 0; draw < into.length; draw += 1) {
+    into[draw] = (into[draw] ?? 0) + Math.round((values[draw] ?? 0) * 100);
+  }
 }
 
 /** Clock ticks a second of Linux's per-thread CPU times (USER_HZ; `getconf CLK_TCK`). */
@@ -72,6 +97,11 @@ export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
   const library = batch.libraryTypes ? lookupOf(batch.libraryTypes) : undefined;
   let evaluateMs = 0;
   let drawMs = 0;
+  const draws = batch.options.draws;
+  const totals: DrawTotals | undefined = batch.programTotals
+    ? { annualSavingsCents: new Float64Array(draws), npvCents: new Float64Array(draws) }
+    : undefined;
+  let samples: DrawSamples | null = null;
   const results = batch.homes.map((home, offset): HomeUncertainty => {
     const index = batch.firstIndex + offset;
     try {
@@ -79,10 +109,18 @@ export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
       const planned = homePackageOf(home, library ? { library } : {});
       const evaluated = performance.now();
       evaluateMs += evaluated - started;
-      const value = kernelUncertainty(compileMeasuresKernel(planned), {
-        ...batch.options,
-        stream: index,
-      });
+      const kernel = compileMeasuresKernel(planned);
+      let value: PackageUncertainty;
+      if (totals) {
+        const settings = runSettings({ ...batch.options, stream: index });
+        samples ??= allocateSamples(settings.draws);
+        runDraws(kernel, settings, 0, samples);
+        value = summarizeSamples(kernel, settings, samples);
+        addCents(totals.annualSavingsCents, samples.annualSavingsUsd);
+        addCents(totals.npvCents, samples.npvUsd);
+      } else {
+        value = kernelUncertainty(kernel, { ...batch.options, stream: index });
+      }
       drawMs += performance.now() - evaluated;
       return { index, ok: true, value };
     } catch (error) {
@@ -95,7 +133,14 @@ export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
   const cpuAfter = threadCpuMs();
   const threadCpu =
     cpuBefore === null || cpuAfter === null ? null : { before: cpuBefore, after: cpuAfter };
-  return { batchId: batch.batchId, results, evaluateMs, drawMs, threadCpuMs: threadCpu };
+  return {
+    batchId: batch.batchId,
+    results,
+    evaluateMs,
+    drawMs,
+    threadCpuMs: threadCpu,
+    ...(totals ? { totals } : {}),
+  };
 }
 
 /** Marks a worker started by the pool (test runners run their own files in worker threads). */

@@ -7,7 +7,14 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluateHome } from '../../core/evaluate.ts';
-import { packageUncertainty } from '../../core/uncertainty/monte-carlo.ts';
+import { quantile } from 'simple-statistics';
+import { compilePackageKernel } from '../../core/plan/kernel.ts';
+import {
+  allocateSamples,
+  packageUncertainty,
+  runDraws,
+  runSettings,
+} from '../../core/uncertainty/monte-carlo.ts';
 import { DEMO_HOMES } from '../../db/demo/alder-creek.ts';
 import {
   openUncertaintyPool,
@@ -34,6 +41,45 @@ describe('uncertainty pool', () => {
     const onTwo = await two.run({ homes: HOMES, options: OPTIONS, batchHomes: 3 });
     expect(onTwo).toEqual(onOne);
     expect(onOne.map((result) => result.index)).toEqual(HOMES.map((_, index) => index));
+  });
+
+  it('adds the homes up draw by draw, as this thread does, the same on one worker and two', async () => {
+    const request = { homes: HOMES, options: OPTIONS, programTotals: true, batchHomes: 4 };
+    await two.run(request);
+    const onTwo = two.lastProgramRange;
+    const one = openUncertaintyPool({ workers: 1 });
+    try {
+      await one.run({ ...request, batchHomes: 7 });
+      expect(one.lastProgramRange).toEqual(onTwo);
+    } finally {
+      await one.close();
+    }
+    // Independently: each home's draws in this thread, added per draw in whole cents, then
+    // simple-statistics' quantile (type 7, as numpy's) of the totals.
+    const savings = new Array<number>(OPTIONS.draws).fill(0);
+    let homes = 0;
+    HOMES.forEach((home, index) => {
+      if (home === BROKEN) return;
+      homes += 1;
+      const settings = runSettings({ ...OPTIONS, stream: index });
+      const samples = allocateSamples(OPTIONS.draws);
+      runDraws(compilePackageKernel(evaluateHome(home)), settings, 0, samples);
+      samples.annualSavingsUsd.forEach((usd, draw) => {
+        savings[draw] = (savings[draw] ?? 0) + Math.round(usd * 100);
+      });
+    });
+    const totalsUsd = savings.map((cents) => cents / 100);
+    expect(onTwo?.homes).toBe(homes);
+    expect(onTwo?.annualSavingsUsd.p10).toBeCloseTo(quantile(totalsUsd, 0.1), 6);
+    expect(onTwo?.annualSavingsUsd.p90).toBeCloseTo(quantile(totalsUsd, 0.9), 6);
+    // The program's P10 is above the sum of the homes' P10s: independent homes offset.
+    const results = await two.run({ homes: HOMES, options: OPTIONS });
+    const sumOfP10 = results.reduce(
+      (sum, result) => sum + (result.ok ? result.value.annualSavingsUsd.p10 : 0),
+      0,
+    );
+    expect(onTwo?.annualSavingsUsd.p10).toBeGreaterThan(sumOfP10);
+    expect(two.lastProgramRange).toBeNull();
   });
 
   it('equals each home run in this thread with its place in the list as its stream', async () => {
