@@ -10,7 +10,9 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { formatNumber, formatUsd } from '../core/format.ts';
 import { homesCsv, testOutCsv, typesCsv } from '../core/portfolio-csv.ts';
+import { exportHomeFile } from '../db/home-file.ts';
 import { evaluatePortfolio, type PortfolioEvaluation } from '../db/portfolio-plans.ts';
+import { effectiveLibrary } from '../db/repositories/library.ts';
 import { openStore } from '../db/store.ts';
 import {
   ask,
@@ -23,6 +25,10 @@ import {
   type Parsed,
 } from './cli-commands.ts';
 import type { ChannelContext } from './channels.ts';
+import { openUncertaintyPool, type ProgramRange } from './uncertainty-pool.ts';
+
+/** Seed of the program's range when draws are asked without one. */
+const DEFAULT_SEED = 1;
 
 /** Width of the progress bar, characters. */
 const BAR_WIDTH = 30;
@@ -45,6 +51,43 @@ function evaluated(context: ChannelContext, output: CliOutput): PortfolioEvaluat
   );
   output.progress?.('');
   return result;
+}
+
+/**
+ * The program's range: the planned homes' files run on the worker pool, added draw by draw.
+ * Each home's stream is its place among the planned homes, in the order evaluated.
+ */
+async function programRange(
+  context: ChannelContext,
+  portfolio: PortfolioEvaluation,
+  draws: number,
+  seed: number,
+): Promise<ProgramRange | null> {
+  const { homes, libraryTypes } = context.store.read((read) => ({
+    homes: portfolio.homes.map((home) => exportHomeFile(read, home.homeId)),
+    libraryTypes: [...effectiveLibrary(read).all()],
+  }));
+  const pool = openUncertaintyPool();
+  try {
+    await pool.run({
+      homes,
+      libraryTypes,
+      options: { draws, seed, histogramBins: 0 },
+      programTotals: true,
+    });
+    return pool.lastProgramRange;
+  } finally {
+    await pool.close();
+  }
+}
+
+function rangeText(range: ProgramRange): string {
+  const usd = (value: number) => formatUsd(value);
+  return [
+    `Range       ${formatNumber(range.draws)} draws a home (PERT, seed ${range.seed}), homes independent:`,
+    `            saves a year  P10 ${usd(range.annualSavingsUsd.p10)} · P50 ${usd(range.annualSavingsUsd.p50)} · P90 ${usd(range.annualSavingsUsd.p90)}`,
+    `            NPV           P10 ${usd(range.npvUsd.p10)} · P50 ${usd(range.npvUsd.p50)} · P90 ${usd(range.npvUsd.p90)}`,
+  ].join('\n');
 }
 
 /** The totals `--json` prints: each a sum of the homes' own packages. */
@@ -112,22 +155,37 @@ export async function runPortfolioPlans(parsed: Parsed, output: CliOutput): Prom
   if (extra.length > 0 || (csvPath === undefined) === !parsed.all) {
     throw new UsageError('portfolio takes --all or FILE.csv (one of them)');
   }
-  let portfolio: PortfolioEvaluation;
+  const { draws: askedDraws, seed: askedSeed } = parsed.choices;
+  const run =
+    askedDraws === undefined && askedSeed === undefined
+      ? null
+      : { draws: askedDraws ?? 1000, seed: askedSeed ?? DEFAULT_SEED };
+  const plan = async (context: ChannelContext) => {
+    const portfolio = evaluated(context, output);
+    const range = run ? await programRange(context, portfolio, run.draws, run.seed) : null;
+    return { portfolio, range };
+  };
+  let outcome: { portfolio: PortfolioEvaluation; range: ProgramRange | null };
   if (csvPath !== undefined) {
     const csv = await readTextFile(csvPath);
     const store = openStore(':memory:');
     try {
       const imported = ask({ store }, 'portfolio.importCsv', { csv });
       if (imported.problems.length > 0) throw new CsvRefusal(imported.problems);
-      portfolio = evaluated({ store }, output);
+      outcome = await plan({ store });
     } finally {
       store.close();
     }
   } else {
-    portfolio = await withProject(parsed, (context) => evaluated(context, output));
+    outcome = await withProject(parsed, plan);
   }
+  const { portfolio, range } = outcome;
   const written = parsed.out === undefined ? [] : await writeFiles(parsed.out, portfolio);
-  output.out(parsed.json ? JSON.stringify(totalsJson(portfolio), null, 2) : totalsText(portfolio));
+  output.out(
+    parsed.json
+      ? JSON.stringify({ ...totalsJson(portfolio), ...(range ? { range } : {}) }, null, 2)
+      : [totalsText(portfolio), ...(range ? [rangeText(range)] : [])].join('\n'),
+  );
   for (const path of written) output.err(`wrote ${path}`);
   return EXIT_OK;
 }

@@ -53,9 +53,10 @@ Usage:
                                             a row of each home's leakage and plan figures
   sealwork portfolio [--json]               the summary: homes by fuel, town and decade built,
                                             test-in leakage, measures by status and type
-  sealwork portfolio --all|FILE.csv [--out DIR] [--json]
+  sealwork portfolio --all|FILE.csv [--out DIR] [--json] [--draws N] [--seed S]
                                             every stored home (or a CSV's, not stored) planned
-                                            together: totals, by type, test-outs; DIR gets CSVs
+                                            together: totals, by type, test-outs; DIR gets CSVs;
+                                            --draws: the program's P10/P50/P90 (worker threads)
   sealwork backup FILE                      copy the whole project to FILE
   sealwork restore FILE                     replace the project with a backup
   sealwork demo [--json]                    evaluate the invented demo homes
@@ -159,8 +160,15 @@ function listProblems(output: CliOutput, heading: string, lines: readonly string
 
 async function dispatch(parsed: Parsed, output: CliOutput): Promise<number> {
   const choiceFlag = Object.entries(parsed.choices).find(([, value]) => value !== undefined);
-  if (choiceFlag && parsed.command !== 'evaluate') {
-    throw new UsageError(`--${choiceFlag[0]} is for the evaluate command`);
+  const portfolioFlag = choiceFlag?.[0] === 'draws' || choiceFlag?.[0] === 'seed';
+  if (
+    choiceFlag &&
+    parsed.command !== 'evaluate' &&
+    !(portfolioFlag && parsed.command === 'portfolio')
+  ) {
+    throw new UsageError(
+      `--${choiceFlag[0]} is for the evaluate command${portfolioFlag ? ' and portfolio --all|FILE.csv' : ''}`,
+    );
   }
   switch (parsed.command) {
     case 'evaluate':

@@ -77,6 +77,32 @@ describe('portfolio --all', () => {
     expect((await runCli(['list', '--db', db, '--json'])).stdout).toBe(before);
   });
 
+  it('gives the program’s range with --draws, the same for the same seed', async () => {
+    const args = ['portfolio', '--all', '--db', db, '--json', '--draws', '300', '--seed', '3'];
+    const first = JSON.parse((await runCli(args)).stdout) as {
+      annualSavingsUsd: number;
+      range: {
+        draws: number;
+        seed: number;
+        annualSavingsUsd: { p10: number; p50: number; p90: number };
+      };
+    };
+    const again = JSON.parse((await runCli(args)).stdout) as typeof first;
+    expect(again.range).toEqual(first.range);
+    expect(first.range).toMatchObject({ draws: 300, seed: 3 });
+    const spread = first.range.annualSavingsUsd;
+    expect(spread.p10).toBeLessThan(spread.p50);
+    expect(spread.p50).toBeLessThan(spread.p90);
+    // Each home's draws stay within its estimates' ranges, so the program's median sits within
+    // a tenth of the point total (common practice for the PERT's mean against its likely value:
+    // the spread is the estimates', not the engine's).
+    expect(Math.abs(spread.p50 - first.annualSavingsUsd) / first.annualSavingsUsd).toBeLessThan(
+      0.1,
+    );
+    const refused = await runCli(['list', '--db', db, '--draws', '3']);
+    expect(refused.exitCode).toBe(2);
+  });
+
   it('refuses both --all and a file, and a CSV with problems', async () => {
     const both = await runCli(['portfolio', '--all', 'x.csv', '--db', db]);
     expect(both.exitCode).toBe(2);
