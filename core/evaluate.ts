@@ -71,6 +71,7 @@ export function evaluateHome(input: unknown, options: EvaluateOptions = {}): Eva
     exponentN: fit.exponentN,
     testIn: model.testIn,
     library,
+    ...(home.calibration ? { calibration: home.calibration } : {}),
   });
   const plan = planHome({ model, prices, measures, ranking: home.economics.ranking ?? 'sir' });
   const pkg = plan.package;
@@ -137,6 +138,18 @@ function notesOf(home: HomeFile, model: HomeModel, plan: PlanResult): string[] {
   }
   if (!home.house.envelopeAreaFt2) {
     notes.push('Envelope area estimated from floor area, stories and height (a box).');
+  }
+  if (home.calibration) {
+    const scaled = plan.entries
+      .map((entry) => entry.step.measure)
+      .filter((measure) => measure.calibrationFactor !== undefined)
+      .map((measure) => `${measure.id} × ${measure.calibrationFactor?.toFixed(2)}`);
+    notes.push(
+      `Estimates scaled by the realization factors of “${home.calibration.basis.label}” (${home.calibration.basis.date}): ` +
+        (scaled.length === 0
+          ? 'no measure not yet done is of a listed type.'
+          : `${scaled.join(', ')}.`),
+    );
   }
   const fan = plan.package.ventilation.addedFan;
   if (fan && home.ventilation?.fanCostUsd === undefined) {

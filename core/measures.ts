@@ -9,7 +9,7 @@ import { SHIPPED_LIBRARY, type MeasureLookup, type MeasureType } from './measure
 import type { Decimal } from './money.ts';
 import { roundToCents, usd } from './money.ts';
 import type { LeakageByLocation } from './home-model.ts';
-import type { LeakLocation, Measure, MeasureStatus, Range } from './schema.ts';
+import type { Calibration, LeakLocation, Measure, MeasureStatus, Range } from './schema.ts';
 
 /** How the CFM50 reduction was estimated. */
 export type EstimateMethod = 'direct' | 'byUnits' | 'shareOfLocation';
@@ -34,6 +34,8 @@ export interface PreparedMeasure {
   estimateMethod: EstimateMethod;
   /** Expected CFM50 removed, before the plan limits it to what is left. */
   estimateCfm50: Range;
+  /** The realization factor the estimate was scaled by (home.calibration), when one was. */
+  calibrationFactor?: number;
   cost: MeasureCost;
   lifeYears: number;
 }
@@ -114,9 +116,18 @@ export function measureCost(cost: Measure['cost']): MeasureCost {
 /** Resolves every measure of a home against the library. */
 export function prepareMeasures(
   measures: readonly Measure[],
-  context: { exponentN: number; testIn: LeakageByLocation; library?: MeasureLookup },
+  context: {
+    exponentN: number;
+    testIn: LeakageByLocation;
+    library?: MeasureLookup;
+    /** Realization factors by type, applied to measures not done yet (home.calibration). */
+    calibration?: Calibration;
+  },
 ): PreparedMeasure[] {
   const library = context.library ?? SHIPPED_LIBRARY;
+  const factors = new Map(
+    (context.calibration?.factors ?? []).map((entry) => [entry.type, entry.factor]),
+  );
   return measures.map((measure, index) => {
     const type = library.find(measure.type);
     if (!type) {
@@ -125,7 +136,16 @@ export function prepareMeasures(
         `expected a measure type from the library, got "${measure.type}"`,
       );
     }
-    const { method, range } = estimateReductionCfm50(measure, type, context);
+    const { method, range: estimated } = estimateReductionCfm50(measure, type, context);
+    const factor = (measure.status ?? 'planned') === 'done' ? undefined : factors.get(type.id);
+    const range =
+      factor === undefined
+        ? estimated
+        : {
+            low: estimated.low * factor,
+            likely: estimated.likely * factor,
+            high: estimated.high * factor,
+          };
     return {
       id: measure.id,
       type,
@@ -133,6 +153,7 @@ export function prepareMeasures(
       status: measure.status ?? 'planned',
       estimateMethod: method,
       estimateCfm50: range,
+      ...(factor === undefined ? {} : { calibrationFactor: factor }),
       cost: measureCost(measure.cost),
       lifeYears: measure.lifeYears ?? type.defaultLifeYears,
     };

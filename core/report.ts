@@ -42,6 +42,8 @@ export interface MeasureReport {
   healthAndSafety: boolean;
   estimateMethod: string;
   estimateCfm50: Range;
+  /** The realization factor the estimate was scaled by (the home's calibration), or null. */
+  calibrationFactor: number | null;
   cfm50Reduction: number;
   cfm50Before: number;
   cfm50After: number;
@@ -164,6 +166,7 @@ function measureReport(entry: PlanEntry, heatingFuelUnit: string): MeasureReport
     healthAndSafety: measure.cost.healthAndSafety,
     estimateMethod: measure.estimateMethod,
     estimateCfm50: { ...measure.estimateCfm50 },
+    calibrationFactor: measure.calibrationFactor ?? null,
     cfm50Reduction: step.appliedCfm50,
     cfm50Before: step.cfm50Before,
     cfm50After: step.cfm50After,

@@ -213,6 +213,33 @@ export const otherLeakageTestSchema = z
   .strictObject({ kind: z.enum(LEAKAGE_TEST_KINDS), ...leakageTestFields })
   .check(checkTestShape);
 
+/**
+ * Realization factors applied to this home's estimates (from the program's test-outs): each
+ * measure of a listed type that is not done yet has its estimated CFM50 range scaled by the
+ * factor. Removing this restores the estimates exactly.
+ */
+export const calibrationSchema = z.strictObject({
+  basis: z.strictObject({ label: z.string().min(1).max(200), date: isoDateSchema }),
+  factors: z
+    .array(
+      z.strictObject({
+        type: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'expected a kebab-case measure type id'),
+        factor: z.number().min(0).max(5),
+        /** Tested homes behind the factor. */
+        homes: z.int().min(1).max(1_000_000),
+        intervalLow: z.number().min(0).max(10).optional(),
+        intervalHigh: z.number().min(0).max(10).optional(),
+      }),
+    )
+    .min(1)
+    .max(100)
+    .refine(
+      (factors) => new Set(factors.map((entry) => entry.type)).size === factors.length,
+      'expected each measure type once',
+    ),
+});
+export type Calibration = z.output<typeof calibrationSchema>;
+
 export const costSchema = z.strictObject({
   materialsUsd: z.number().min(0).max(1_000_000),
   laborHours: z.number().min(0).max(10_000),
@@ -312,6 +339,7 @@ export const homeFileSchema = z
     ventilation: ventilationSchema.optional(),
     emissions: emissionsSchema.optional(),
     financing: financingSchema.optional(),
+    calibration: calibrationSchema.optional(),
     measures: z.array(measureSchema).max(200),
   })
   .superRefine(
@@ -357,6 +385,7 @@ export const homeDataSchema = z.strictObject({
   ventilation: ventilationSchema.optional(),
   emissions: emissionsSchema.optional(),
   financing: financingSchema.optional(),
+  calibration: calibrationSchema.optional(),
 });
 export type HomeData = z.output<typeof homeDataSchema>;
 export type Measure = HomeFile['measures'][number];

@@ -41,6 +41,8 @@ export const CHANNEL_NAMES = [
   'homeFile.evaluate',
   'portfolio.summary',
   'portfolio.evaluate',
+  'portfolio.applyCalibration',
+  'portfolio.removeCalibration',
   'portfolio.checkCsv',
   'portfolio.importCsv',
   'portfolio.homesCsv',

@@ -96,6 +96,7 @@ function quickPackage(input: unknown, options: EvaluateOptions): HomePackage | n
     exponentN: fit.exponentN,
     testIn: model.testIn,
     library,
+    ...(home.calibration ? { calibration: home.calibration } : {}),
   });
   const start = stateOf(model, model.testIn);
   const sequenced = sequenceMeasures({

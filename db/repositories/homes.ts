@@ -169,6 +169,15 @@ export function updateHome(write: WriteAccess, id: number, input: HomeInput): vo
   found(result.changes > 0 ? true : undefined, `home ${id}`, 'homeId');
 }
 
+/** Replaces only a home's data (house, climate, …, calibration), checked as any data is. */
+export function setHomeData(write: WriteAccess, id: number, data: HomeData): void {
+  const checked = validated(homeDataSchema, data, 'data');
+  const result = write
+    .statement('UPDATE homes SET data = ?, updated_at = ? WHERE id = ? AND deleted_at IS NULL')
+    .run(JSON.stringify(checked), write.now, id);
+  found(result.changes > 0 ? true : undefined, `home ${id}`, 'homeId');
+}
+
 /** Marks the home's `updatedAt` (after a change to one of its tests or measures). */
 export function touchHome(write: WriteAccess, id: number): void {
   const result = write

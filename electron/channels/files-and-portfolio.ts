@@ -19,13 +19,43 @@ import {
   evaluatePortfolio,
   MAX_PORTFOLIO_HOMES,
   type PortfolioEvaluation,
+  type PortfolioSelection,
 } from '../../db/portfolio-plans.ts';
+import {
+  applyCalibration,
+  removeCalibration,
+  type CalibrationOutcome,
+} from '../../db/calibration-apply.ts';
 import { JOB_STATUSES, LEAKINESS_BANDS } from '../../db/repositories/homes.ts';
 import { byId, channel, id, nothing, recordOf } from './_define.ts';
 import { choicesFields, choicesOf } from './choices.ts';
 
 /** The largest portfolio CSV a request may carry, characters (10,000 homes fit easily). */
 const MAX_CSV_CHARS = 8 * 1024 * 1024;
+
+/** Which homes a portfolio request is about: by id when `homeIds` is there, else a filter. */
+const selectionFields = {
+  filter: z
+    .strictObject({
+      search: z.string().max(200).optional(),
+      town: z.string().max(100).optional(),
+      heatingFuel: z.string().max(40).optional(),
+      clientId: id.optional(),
+      jobStatus: z.enum(JOB_STATUSES).optional(),
+      leakiness: z.enum(LEAKINESS_BANDS).optional(),
+    })
+    .optional(),
+  homeIds: z.array(id).min(1).max(MAX_PORTFOLIO_HOMES).optional(),
+};
+
+function selectionOf(request: {
+  filter?: z.output<typeof selectionFields.filter>;
+  homeIds?: number[] | undefined;
+}): PortfolioSelection {
+  return request.homeIds ? { homeIds: request.homeIds } : { filter: request.filter ?? {} };
+}
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'expected a date as YYYY-MM-DD');
 
 /** The `homeFile.*` and `portfolio.*` channels. */
 export const fileAndPortfolioChannels = {
@@ -54,28 +84,29 @@ export const fileAndPortfolioChannels = {
   }),
   // The homes given by id when `homeIds` is there, else those the filter lists (all by default).
   'portfolio.evaluate': channel({
-    request: z.strictObject({
-      filter: z
-        .strictObject({
-          search: z.string().max(200).optional(),
-          town: z.string().max(100).optional(),
-          heatingFuel: z.string().max(40).optional(),
-          clientId: id.optional(),
-          jobStatus: z.enum(JOB_STATUSES).optional(),
-          leakiness: z.enum(LEAKINESS_BANDS).optional(),
-        })
-        .optional(),
-      homeIds: z.array(id).min(1).max(MAX_PORTFOLIO_HOMES).optional(),
-    }),
+    request: z.strictObject(selectionFields),
     response: recordOf<Omit<PortfolioEvaluation, 'homes'>>(),
     handle: ({ store }, request) =>
       store.read((read) => {
-        const { homes: _reports, ...rest } = evaluatePortfolio(
-          read,
-          request.homeIds ? { homeIds: request.homeIds } : { filter: request.filter ?? {} },
-        );
+        const { homes: _reports, ...rest } = evaluatePortfolio(read, selectionOf(request));
         return rest;
       }),
+  }),
+  // The program's fitted factors written into the chosen homes not yet started.
+  'portfolio.applyCalibration': channel({
+    request: z.strictObject({
+      ...selectionFields,
+      basis: z.strictObject({ label: z.string().trim().min(1).max(200), date: isoDate }),
+    }),
+    response: recordOf<CalibrationOutcome>(),
+    handle: ({ store }, request) =>
+      store.write((write) => applyCalibration(write, selectionOf(request), request.basis)),
+  }),
+  'portfolio.removeCalibration': channel({
+    request: z.strictObject(selectionFields),
+    response: recordOf<CalibrationOutcome>(),
+    handle: ({ store }, request) =>
+      store.write((write) => removeCalibration(write, selectionOf(request))),
   }),
   'portfolio.checkCsv': channel({
     request: z.strictObject({ csv: z.string().max(MAX_CSV_CHARS) }),

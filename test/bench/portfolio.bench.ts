@@ -2,6 +2,8 @@
  * How long a portfolio takes: importing a 10,000-home CSV into a fresh project file (target
  * under 5 s, checking and writing together, as `sealwork import FILE.csv` does) and opening
  * the portfolio summary over those homes (target under 0.3 s, the median of several runs).
+ * Then the portfolio evaluated whole (every home planned, the Portfolio screen's figures, as
+ * the `portfolio.evaluate` channel gives them) and the size of that reply (no target yet).
  * Prints figures and their ratio to the targets; asserts nothing. Run with `npm run bench`.
  *
  * The homes come from a seeded generator, varied in size, age, fuel, climate and test, a
@@ -15,6 +17,7 @@ import Papa from 'papaparse';
 import { commitCsvImport, planCsvImport } from '../../db/csv-import.ts';
 import { homesCsv } from '../../db/csv-export.ts';
 import { portfolioSummary } from '../../db/portfolio.ts';
+import { evaluatePortfolio } from '../../db/portfolio-plans.ts';
 import { climates } from '../../db/repositories/reusable-sets.ts';
 import { openStore } from '../../db/store.ts';
 
@@ -137,6 +140,17 @@ try {
   console.log(
     `portfolio summary of ${homes.toLocaleString('en-US')} homes: median ${summaryS.toFixed(3)} s over ${SUMMARY_RUNS} runs ` +
       `(first ${samples[0]?.toFixed(3)} s); target < ${SUMMARY_TARGET_S} s; ratio ${(summaryS / SUMMARY_TARGET_S).toFixed(2)} of target`,
+  );
+
+  const evaluateStart = performance.now();
+  const evaluated = store.read((read) => evaluatePortfolio(read, { filter: {} }));
+  const evaluateS = (performance.now() - evaluateStart) / 1000;
+  const { homes: _reports, ...reply } = evaluated;
+  console.log(
+    `portfolio evaluated whole (${evaluated.figures.totals.homes.toLocaleString('en-US')} homes planned, ` +
+      `${evaluated.skipped.length} not ready): ${evaluateS.toFixed(2)} s ` +
+      `(${((evaluateS * 1000) / Math.max(1, evaluated.figures.totals.homes)).toFixed(2)} ms a home); ` +
+      `the screen's reply ${(JSON.stringify(reply).length / 2 ** 20).toFixed(1)} MB; no target`,
   );
 
   const exportStart = performance.now();

@@ -14,7 +14,7 @@ import Papa from 'papaparse';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formatNumber, formatRatio, formatUsd } from '../../core/format.ts';
-import { listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
+import { getHome, listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
 import { callChannel, type ChannelRequest, type ChannelResponse } from '../../electron/channels.ts';
 import { axeViolations } from './_lib/axe.ts';
 import { folded, paintedPixels } from './_lib/drawn.ts';
@@ -162,6 +162,16 @@ describe('the Portfolio screen in chromium', { timeout: TEST_TIMEOUT_MS }, () =>
       );
       expect(row).toContain(type.factor === null ? 'Not determined' : formatRatio(type.factor));
     }
+    // Too few tested homes for any factor: applying says so and writes nothing.
+    await page.getByRole('button', { name: 'Apply the fitted factors' }).click();
+    await page
+      .getByRole('status')
+      .filter({ hasText: 'No factor rests on enough tested homes yet' })
+      .waitFor();
+    const calibrated = rig.project.store.read((read) =>
+      listHomes(read).filter((home) => getHome(read, home.id).data.calibration !== undefined),
+    );
+    expect(calibrated).toEqual([]);
     expect(await axeViolations(page)).toEqual([]);
     await page
       .locator('section[aria-labelledby="portfolio-test-out"]')

@@ -28,6 +28,35 @@ export class PortfolioState {
   /** How long the last evaluation took, from asking to the answer, milliseconds. */
   ms = $state<number | null>(null);
   #asked = 0;
+  /** What the last apply or remove of the calibration did, in words. */
+  calibrationMessage = $state<string | null>(null);
+  calibrationBusy = $state(false);
+
+  /** Writes the fitted factors into the chosen homes not yet started (or removes them). */
+  async changeCalibration(apply: boolean): Promise<void> {
+    this.calibrationBusy = true;
+    const filter = this.requestFilter();
+    const today = new Date().toISOString().slice(0, 10);
+    const reply = apply
+      ? await call('portfolio.applyCalibration', {
+          filter,
+          basis: { label: `Test-outs of the program to ${today}`, date: today },
+        })
+      : await call('portfolio.removeCalibration', { filter });
+    this.calibrationBusy = false;
+    if (!reply.ok) {
+      this.calibrationMessage = `Not done: ${reply.error.message}`;
+      return;
+    }
+    const { homeIds, factors } = reply.value;
+    const homes = `${homeIds.length} ${homeIds.length === 1 ? 'home' : 'homes'}`;
+    this.calibrationMessage = apply
+      ? factors.length === 0
+        ? 'No factor rests on enough tested homes yet (5 or more with the type), so nothing was applied.'
+        : `Applied ${factors.length} ${factors.length === 1 ? 'factor' : 'factors'} to the estimates of ${homes} not yet started; their plans say so.`
+      : `Removed the factors from ${homes}; their estimates are as they were.`;
+    await this.load();
+  }
 
   /** The towns and fuels of the project's homes, for the filters' choices. */
   async loadChoices(): Promise<void> {

@@ -216,6 +216,11 @@ export function validRequests(ids: KnownIds): ValidRequests {
     'homeFile.evaluate': { file: baseHomeFile() },
     'portfolio.summary': {},
     'portfolio.evaluate': { filter: { heatingFuel: 'naturalGas' } },
+    'portfolio.applyCalibration': {
+      filter: { town: 'Nowhere at all' },
+      basis: { label: 'Channel test', date: '2026-11-30' },
+    },
+    'portfolio.removeCalibration': { filter: { town: 'Nowhere at all' } },
     'portfolio.checkCsv': { csv: PORTFOLIO_CSV },
     'portfolio.importCsv': { csv: PORTFOLIO_CSV },
     'portfolio.homesCsv': {},
