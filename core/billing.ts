@@ -39,6 +39,7 @@ export {
 export type { CsvProblem } from './billing/csv-reader.ts';
 export { csvProblemText } from './billing/csv-reader.ts';
 export { dayNumberOf, isoDateOf } from './billing/dates.ts';
+export { normalYearFromSeries } from './billing/normals.ts';
 export type { BillWeather, DegreeDayKind, NormalYear } from './billing/degree-days.ts';
 export {
   billWeather,

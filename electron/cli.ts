@@ -9,6 +9,7 @@
  * nothing on standard output; 1 anything unexpected.
  */
 import { parseArgs } from 'node:util';
+import { runBills } from './cli-bills.ts';
 import { InputError } from '../core/errors.ts';
 import { DbError } from '../db/errors.ts';
 import {
@@ -57,6 +58,9 @@ Usage:
                                             every stored home (or a CSV's, not stored) planned
                                             together: totals, by type, test-outs; DIR gets CSVs;
                                             --draws: the program's P10/P50/P90 (worker threads)
+  sealwork bills BILLS.csv --temperatures TEMPS.csv --work-done YYYY-MM-DD [--estimate N] [--json]
+                                            what the bills say the work saved: degree-day fits
+                                            before and after (Guideline 14 statistics)
   sealwork backup FILE                      copy the whole project to FILE
   sealwork restore FILE                     replace the project with a backup
   sealwork demo [--json]                    evaluate the invented demo homes
@@ -89,6 +93,9 @@ function parse(argv: readonly string[]): Parsed {
       'dry-run': { type: 'boolean' },
       results: { type: 'boolean' },
       all: { type: 'boolean' },
+      temperatures: { type: 'string' },
+      'work-done': { type: 'string' },
+      estimate: { type: 'string' },
       out: { type: 'string' },
       draws: { type: 'string' },
       seed: { type: 'string' },
@@ -111,6 +118,11 @@ function parse(argv: readonly string[]): Parsed {
     results: values.results === true,
     choices: choicesOfFlags(values),
     all: values.all === true,
+    bills: {
+      ...(values.temperatures === undefined ? {} : { temperatures: values.temperatures }),
+      ...(values['work-done'] === undefined ? {} : { workDone: values['work-done'] }),
+      ...(values.estimate === undefined ? {} : { estimate: values.estimate }),
+    },
     out: values.out,
   };
 }
@@ -183,6 +195,8 @@ async function dispatch(parsed: Parsed, output: CliOutput): Promise<number> {
       return runExportCsv(parsed, output);
     case 'portfolio':
       return runPortfolio(parsed, output);
+    case 'bills':
+      return runBills(parsed, output);
     case 'backup':
       return runBackup(parsed, output);
     case 'restore':
