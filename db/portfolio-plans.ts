@@ -7,6 +7,7 @@
  */
 import { fitRealization, type RealizationFit } from '../core/calibration.ts';
 import { InputError } from '../core/errors.ts';
+import type { HomeFile } from '../core/schema.ts';
 import { evaluateHome, reportOf } from '../core/evaluate.ts';
 import {
   portfolioFigures,
@@ -94,6 +95,22 @@ function selectedHomes(read: ReadAccess, selection: PortfolioSelection) {
     return found;
   }
   return listHomes(read, { ...selection.filter, limit: MAX_PORTFOLIO_HOMES });
+}
+
+/**
+ * The chosen homes as home files, those that can be planned (have a test-in and every part a
+ * plan needs); the others are left out, as `evaluatePortfolio` leaves them out.
+ */
+export function portfolioHomeFiles(read: ReadAccess, selection: PortfolioSelection): HomeFile[] {
+  const files: HomeFile[] = [];
+  for (const summary of selectedHomes(read, selection)) {
+    try {
+      files.push(exportHomeFile(read, summary.id));
+    } catch (error) {
+      if (!(error instanceof InputError) && !(error instanceof DbError)) throw error;
+    }
+  }
+  return files;
 }
 
 /**

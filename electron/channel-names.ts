@@ -41,6 +41,7 @@ export const CHANNEL_NAMES = [
   'homeFile.evaluate',
   'portfolio.summary',
   'portfolio.evaluate',
+  'portfolio.homeFiles',
   'portfolio.applyCalibration',
   'portfolio.removeCalibration',
   'portfolio.checkCsv',

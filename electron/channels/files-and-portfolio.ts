@@ -15,9 +15,12 @@ import {
 } from '../../db/csv-import.ts';
 import { exportHomeFile, importHomeFile } from '../../db/home-file.ts';
 import { portfolioSummary, type PortfolioSummary } from '../../db/portfolio.ts';
+import { effectiveLibrary } from '../../db/repositories/library.ts';
+import type { MeasureType } from '../../core/measure-library.ts';
 import {
   evaluatePortfolio,
   MAX_PORTFOLIO_HOMES,
+  portfolioHomeFiles,
   type PortfolioEvaluation,
   type PortfolioSelection,
 } from '../../db/portfolio-plans.ts';
@@ -91,6 +94,19 @@ export const fileAndPortfolioChannels = {
         const { homes: _reports, ...rest } = evaluatePortfolio(read, selectionOf(request));
         return rest;
       }),
+  }),
+  // The chosen homes' files and the project's library, for the page's worker to draw from.
+  'portfolio.homeFiles': channel({
+    request: z.strictObject(selectionFields),
+    response: z.strictObject({
+      files: z.array(recordOf<HomeFile>()),
+      libraryTypes: z.array(recordOf<MeasureType>()),
+    }),
+    handle: ({ store }, request) =>
+      store.read((read) => ({
+        files: portfolioHomeFiles(read, selectionOf(request)),
+        libraryTypes: [...effectiveLibrary(read).all()],
+      })),
   }),
   // The program's fitted factors written into the chosen homes not yet started.
   'portfolio.applyCalibration': channel({

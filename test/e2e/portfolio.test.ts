@@ -14,6 +14,8 @@ import Papa from 'papaparse';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formatNumber, formatRatio, formatUsd } from '../../core/format.ts';
+import { lookupOf } from '../../core/measure-library.ts';
+import { programRange } from '../../core/uncertainty/program-range.ts';
 import { getHome, listHomes, type HomeSummary } from '../../db/repositories/homes.ts';
 import { callChannel, type ChannelRequest, type ChannelResponse } from '../../electron/channels.ts';
 import { axeViolations } from './_lib/axe.ts';
@@ -80,6 +82,24 @@ describe('the Portfolio screen in chromium', { timeout: TEST_TIMEOUT_MS }, () =>
     await expect
       .poll(() => paintedPixels(page, 'section[aria-labelledby="portfolio-supply"] canvas'))
       .toBeGreaterThan(500);
+
+    // The program's range, drawn in the page's worker, as Node draws it from the same files.
+    await page.getByRole('button', { name: 'Work out the range' }).click();
+    await page.locator('#portfolio-range-table').waitFor({ timeout: 30_000 });
+    const files = callChannel({ store: rig.project.store }, 'portfolio.homeFiles', { filter: {} });
+    if (!files.ok) throw new Error(files.error.message);
+    const range = programRange(
+      files.value.files,
+      { draws: 1000, seed: 1 },
+      lookupOf(files.value.libraryTypes),
+    );
+    const rangeRows = await page.locator('#portfolio-range-table tbody tr').allTextContents();
+    expect(folded(rangeRows[0] ?? '')).toBe(
+      folded(
+        `Saves a year${[range.annualSavingsUsd.p10, range.annualSavingsUsd.p50, range.annualSavingsUsd.p90].map((value) => formatUsd(value)).join('')}`,
+      ),
+    );
+    expect(folded(rangeRows[1] ?? '')).toContain(formatUsd(range.npvUsd.p50));
     expect(await axeViolations(page)).toEqual([]);
     await page.screenshot({ path: join(SCREENSHOTS, 'portfolio.png'), fullPage: true });
 

@@ -8,6 +8,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluateHome } from '../../core/evaluate.ts';
 import { quantile } from 'simple-statistics';
+import { programRange } from '../../core/uncertainty/program-range.ts';
 import { compilePackageKernel } from '../../core/plan/kernel.ts';
 import {
   allocateSamples,
@@ -80,6 +81,17 @@ describe('uncertainty pool', () => {
     );
     expect(onTwo?.annualSavingsUsd.p10).toBeGreaterThan(sumOfP10);
     expect(two.lastProgramRange).toBeNull();
+    // The page's one-thread path (core/uncertainty/program-range.ts) draws the same program.
+    const single = programRange(HOMES, { draws: OPTIONS.draws, seed: OPTIONS.seed });
+    expect(single.failed.map((failure) => failure.field)).toEqual(['leakageTest.cfm50']);
+    expect(single.homes).toBe(onTwo?.homes);
+    await two.run({
+      homes: HOMES,
+      options: { draws: OPTIONS.draws, seed: OPTIONS.seed, histogramBins: 0 },
+      programTotals: true,
+    });
+    expect(two.lastProgramRange?.annualSavingsUsd).toEqual(single.annualSavingsUsd);
+    expect(two.lastProgramRange?.npvUsd).toEqual(single.npvUsd);
   });
 
   it('equals each home run in this thread with its place in the list as its stream', async () => {

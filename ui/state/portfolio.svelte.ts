@@ -4,7 +4,9 @@
  * towns and heating fuels the project's homes have).
  */
 import type { ChannelRequest, ChannelResponse } from '../../electron/channels.ts';
+import type { ProgramRangeResult } from '../../core/uncertainty/program-range.ts';
 import { call } from '../bridge.ts';
+import { runChoicesJob } from './choices-workers.ts';
 import type { LoadStatus } from './homes.svelte.ts';
 
 export type PortfolioReply = ChannelResponse<'portfolio.evaluate'>;
@@ -28,6 +30,35 @@ export class PortfolioState {
   /** How long the last evaluation took, from asking to the answer, milliseconds. */
   ms = $state<number | null>(null);
   #asked = 0;
+  /** The program's range, worked out in the page's worker from the chosen homes' files. */
+  range = $state.raw<ProgramRangeResult | null>(null);
+  rangeStatus = $state<'idle' | 'running' | 'ready' | 'failed'>('idle');
+  rangeFailure = $state<string | null>(null);
+  rangeDraws = $state(1000);
+  rangeSeed = 1;
+
+  async runRange(): Promise<void> {
+    this.rangeStatus = 'running';
+    const files = await call('portfolio.homeFiles', { filter: this.requestFilter() });
+    if (!files.ok) {
+      this.rangeFailure = files.error.message;
+      this.rangeStatus = 'failed';
+      return;
+    }
+    const outcome = await runChoicesJob({
+      kind: 'program',
+      inputs: { homeFiles: files.value.files, libraryTypes: files.value.libraryTypes },
+      request: { draws: this.rangeDraws, seed: this.rangeSeed },
+    });
+    if (outcome.ok) {
+      this.range = outcome.value;
+      this.rangeFailure = null;
+      this.rangeStatus = 'ready';
+    } else if (!outcome.replaced) {
+      this.rangeFailure = outcome.message;
+      this.rangeStatus = 'failed';
+    }
+  }
   /** What the last apply or remove of the calibration did, in words. */
   calibrationMessage = $state<string | null>(null);
   calibrationBusy = $state(false);

@@ -12,6 +12,7 @@ import type {
 } from '../../core/choices.ts';
 import type { MeasureType } from '../../core/measure-library.ts';
 import type { ProposalOptionsSettings } from '../../core/plan/options.ts';
+import type { ProgramRangeResult } from '../../core/uncertainty/program-range.ts';
 
 /** What the worker evaluates from: the home file and the library it takes defaults from. */
 export interface ChoicesInputs {
@@ -21,16 +22,25 @@ export interface ChoicesInputs {
   libraryTypes: readonly MeasureType[];
 }
 
-export type ChoicesJob = { id: number; inputs: ChoicesInputs } & (
-  | { kind: 'ranges'; request: RangesRequest & { draws: number; seed: number } }
-  | { kind: 'best'; request: BudgetRequest }
-  | { kind: 'options'; request: ProposalOptionsSettings & RangesRequest }
-);
+export type ChoicesJob =
+  | ({ id: number; inputs: ChoicesInputs } & (
+      | { kind: 'ranges'; request: RangesRequest & { draws: number; seed: number } }
+      | { kind: 'best'; request: BudgetRequest }
+      | { kind: 'options'; request: ProposalOptionsSettings & RangesRequest }
+    ))
+  | {
+      id: number;
+      kind: 'program';
+      /** A portfolio's home files (home i draws on stream i) and the project's library. */
+      inputs: { homeFiles: readonly unknown[]; libraryTypes: readonly MeasureType[] };
+      request: { draws: number; seed: number };
+    };
 
 export type ChoicesValue =
   | { kind: 'ranges'; value: UncertaintyReport }
   | { kind: 'best'; value: BestPackageReport }
-  | { kind: 'options'; value: OptionReport[] };
+  | { kind: 'options'; value: OptionReport[] }
+  | { kind: 'program'; value: ProgramRangeResult };
 
 export type ChoicesAnswer =
   | ({ id: number; ok: true; ms: number } & ChoicesValue)

@@ -8,6 +8,7 @@ import { bestPackageFor, proposalOptionsReport, uncertaintyReportOf } from '../.
 import { InputError } from '../../core/errors.ts';
 import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
 import { lookupOf } from '../../core/measure-library.ts';
+import { programRange } from '../../core/uncertainty/program-range.ts';
 import type { ChoicesAnswer, ChoicesInputs, ChoicesJob, ChoicesValue } from './choices-protocol.ts';
 
 interface WorkerScope {
@@ -29,6 +30,10 @@ function evaluationOf(inputs: ChoicesInputs): Evaluation {
 }
 
 function run(job: ChoicesJob): ChoicesValue {
+  if (job.kind === 'program') {
+    const library = lookupOf(job.inputs.libraryTypes);
+    return { kind: 'program', value: programRange(job.inputs.homeFiles, job.request, library) };
+  }
   const evaluation = evaluationOf(job.inputs);
   switch (job.kind) {
     case 'ranges':

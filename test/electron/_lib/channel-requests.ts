@@ -216,6 +216,7 @@ export function validRequests(ids: KnownIds): ValidRequests {
     'homeFile.evaluate': { file: baseHomeFile() },
     'portfolio.summary': {},
     'portfolio.evaluate': { filter: { heatingFuel: 'naturalGas' } },
+    'portfolio.homeFiles': { filter: { heatingFuel: 'naturalGas' } },
     'portfolio.applyCalibration': {
       filter: { town: 'Nowhere at all' },
       basis: { label: 'Channel test', date: '2026-11-30' },
