@@ -69,6 +69,8 @@ export interface Parsed {
   all: boolean;
   /** portfolio: the folder to write the CSV and JSON files to. */
   out: string | undefined;
+  /** portfolio: a program-wide bias's ± fraction, as typed. */
+  bias: string | undefined;
   /** bills: the temperature file, the day the work was done and the estimate. */
   bills: { temperatures?: string; workDone?: string; estimate?: string };
 }

@@ -62,6 +62,7 @@ async function programRange(
   portfolio: PortfolioEvaluation,
   draws: number,
   seed: number,
+  programBias: number | undefined,
 ): Promise<ProgramRange | null> {
   const { homes, libraryTypes } = context.store.read((read) => ({
     homes: portfolio.homes.map((home) => exportHomeFile(read, home.homeId)),
@@ -74,6 +75,7 @@ async function programRange(
       libraryTypes,
       options: { draws, seed, histogramBins: 0 },
       programTotals: true,
+      ...(programBias === undefined ? {} : { programBias }),
     });
     return pool.lastProgramRange;
   } finally {
@@ -84,7 +86,10 @@ async function programRange(
 function rangeText(range: ProgramRange): string {
   const usd = (value: number) => formatUsd(value);
   return [
-    `Range       ${formatNumber(range.draws)} draws a home (PERT, seed ${range.seed}), homes independent:`,
+    `Range       ${formatNumber(range.draws)} draws a home (PERT, seed ${range.seed}), ` +
+      (range.programBias === null
+        ? 'homes independent:'
+        : `a shared bias of ± ${formatNumber(range.programBias * 100, 0)} % on the estimates:`),
     `            saves a year  P10 ${usd(range.annualSavingsUsd.p10)} · P50 ${usd(range.annualSavingsUsd.p50)} · P90 ${usd(range.annualSavingsUsd.p90)}`,
     `            NPV           P10 ${usd(range.npvUsd.p10)} · P50 ${usd(range.npvUsd.p50)} · P90 ${usd(range.npvUsd.p90)}`,
   ].join('\n');
@@ -156,13 +161,24 @@ export async function runPortfolioPlans(parsed: Parsed, output: CliOutput): Prom
     throw new UsageError('portfolio takes --all or FILE.csv (one of them)');
   }
   const { draws: askedDraws, seed: askedSeed } = parsed.choices;
+  let programBias: number | undefined;
+  if (parsed.bias !== undefined) {
+    programBias = Number(parsed.bias);
+    if (!/^\d*\.?\d+$/.test(parsed.bias) || !(programBias <= 0.9)) {
+      throw new UsageError(
+        `--bias expects a fraction from 0 to 0.9 (0.2 for ± 20 %), got "${parsed.bias}"`,
+      );
+    }
+  }
   const run =
-    askedDraws === undefined && askedSeed === undefined
+    askedDraws === undefined && askedSeed === undefined && programBias === undefined
       ? null
       : { draws: askedDraws ?? 1000, seed: askedSeed ?? DEFAULT_SEED };
   const plan = async (context: ChannelContext) => {
     const portfolio = evaluated(context, output);
-    const range = run ? await programRange(context, portfolio, run.draws, run.seed) : null;
+    const range = run
+      ? await programRange(context, portfolio, run.draws, run.seed, programBias)
+      : null;
     return { portfolio, range };
   };
   let outcome: { portfolio: PortfolioEvaluation; range: ProgramRange | null };

@@ -54,10 +54,11 @@ Usage:
                                             a row of each home's leakage and plan figures
   sealwork portfolio [--json]               the summary: homes by fuel, town and decade built,
                                             test-in leakage, measures by status and type
-  sealwork portfolio --all|FILE.csv [--out DIR] [--json] [--draws N] [--seed S]
+  sealwork portfolio --all|FILE.csv [--out DIR] [--json] [--draws N] [--seed S] [--bias F]
                                             every stored home (or a CSV's, not stored) planned
                                             together: totals, by type, test-outs; DIR gets CSVs;
-                                            --draws: the program's P10/P50/P90 (worker threads)
+                                            --draws: the program's P10/P50/P90 (worker threads);
+                                            --bias 0.2: a shared ± 20 % on every home's estimates
   sealwork bills BILLS.csv --temperatures TEMPS.csv --work-done YYYY-MM-DD [--estimate N] [--json]
                                             what the bills say the work saved: degree-day fits
                                             before and after (Guideline 14 statistics)
@@ -96,6 +97,7 @@ function parse(argv: readonly string[]): Parsed {
       temperatures: { type: 'string' },
       'work-done': { type: 'string' },
       estimate: { type: 'string' },
+      bias: { type: 'string' },
       out: { type: 'string' },
       draws: { type: 'string' },
       seed: { type: 'string' },
@@ -118,6 +120,7 @@ function parse(argv: readonly string[]): Parsed {
     results: values.results === true,
     choices: choicesOfFlags(values),
     all: values.all === true,
+    bias: values.bias,
     bills: {
       ...(values.temperatures === undefined ? {} : { temperatures: values.temperatures }),
       ...(values['work-done'] === undefined ? {} : { workDone: values['work-done'] }),

@@ -50,6 +50,8 @@ export interface PortfolioRequest {
   batchHomes?: number;
   /** Also add the homes up draw by draw: the program's range (`lastProgramRange`). */
   programTotals?: boolean;
+  /** With programTotals: a program-wide bias's ± fraction (core/uncertainty/program-range.ts). */
+  programBias?: number;
 }
 
 /**
@@ -60,6 +62,8 @@ export interface PortfolioRequest {
 export interface ProgramRange {
   draws: number;
   seed: number;
+  /** The program-wide bias's ± fraction; null when the homes were independent. */
+  programBias: number | null;
   homes: number;
   annualSavingsUsd: FigureSpread;
   npvUsd: FigureSpread;
@@ -135,7 +139,13 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
         );
       }
       const batches = batchesOf(request, count).map((batch) =>
-        request.programTotals ? { ...batch, programTotals: true } : batch,
+        request.programTotals
+          ? {
+              ...batch,
+              programTotals: true,
+              ...(request.programBias === undefined ? {} : { programBias: request.programBias }),
+            }
+          : batch,
       );
       const results = new Array<HomeUncertainty>(request.homes.length);
       const draws = request.options.draws;
@@ -181,6 +191,7 @@ export function openUncertaintyPool(options: { workers?: number } = {}): Uncerta
           lastProgramRange = {
             draws,
             seed: request.options.seed,
+            programBias: request.programBias ?? null,
             homes: results.filter((result) => result.ok).length,
             annualSavingsUsd: spreadOf(toUsd(savingsCents)),
             npvUsd: spreadOf(toUsd(npvCents)),

@@ -24,6 +24,7 @@ import {
   type UncertaintyOptions,
 } from '../core/uncertainty/monte-carlo.ts';
 import { homePackageOf } from '../core/uncertainty/portfolio-home.ts';
+import { programBiasScale } from '../core/uncertainty/program-range.ts';
 
 /** A batch of homes: `homes[i]` is the portfolio's home `firstIndex + i`. */
 export interface UncertaintyBatch {
@@ -35,6 +36,8 @@ export interface UncertaintyBatch {
   libraryTypes?: readonly MeasureType[];
   /** Add up the batch's homes draw by draw (the program's totals), in whole cents. */
   programTotals?: boolean;
+  /** With programTotals: a program-wide bias's ± fraction on every home's reductions. */
+  programBias?: number;
 }
 
 /**
@@ -102,6 +105,10 @@ export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
     ? { annualSavingsCents: new Float64Array(draws), npvCents: new Float64Array(draws) }
     : undefined;
   let samples: DrawSamples | null = null;
+  const scale =
+    totals && batch.programBias !== undefined
+      ? programBiasScale(batch.options.seed, draws, batch.programBias)
+      : undefined;
   const results = batch.homes.map((home, offset): HomeUncertainty => {
     const index = batch.firstIndex + offset;
     try {
@@ -114,7 +121,7 @@ export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
       if (totals) {
         const settings = runSettings({ ...batch.options, stream: index });
         samples ??= allocateSamples(settings.draws);
-        runDraws(kernel, settings, 0, samples);
+        runDraws(kernel, settings, 0, samples, scale);
         value = summarizeSamples(kernel, settings, samples);
         addCents(totals.annualSavingsCents, samples.annualSavingsUsd);
         addCents(totals.npvCents, samples.npvUsd);

@@ -93,13 +93,15 @@ export function allocateSamples(draws: number): DrawSamples {
 
 /**
  * Runs draws `firstDraw` … `firstDraw + samples.npvUsd.length − 1` of a kernel into `samples`.
- * Draw k's figures depend only on (seed, stream, k).
+ * Draw k's figures depend only on (seed, stream, k) — and, when given, on `reductionScale[k]`,
+ * a factor on every measure's drawn reduction in draw k (a bias shared by a program's homes).
  */
 export function runDraws(
   kernel: PackageKernel,
   settings: RunSettings,
   firstDraw: number,
   samples: DrawSamples,
+  reductionScale?: Float64Array,
 ): void {
   kernel.ranges.forEach((range, index) =>
     requireRange(`measures.${kernel.measureIds[index]}.estimateCfm50`, range),
@@ -119,6 +121,11 @@ export function runDraws(
     random.reseed(settings.seed, settings.stream, firstDraw + offset);
     for (let index = 0; index < count; index += 1) {
       reductions[index] = sampleRange(samplers[index] as RangeSampler, random.nextFraction());
+    }
+    if (reductionScale) {
+      const scale = reductionScale[firstDraw + offset] ?? 1;
+      for (let index = 0; index < count; index += 1)
+        reductions[index] = (reductions[index] ?? 0) * scale;
     }
     // The conditions always take the next numbers, so varying more leaves the measures alone;
     // when none varies, nothing reads them.

@@ -100,6 +100,20 @@ describe('the Portfolio screen in chromium', { timeout: TEST_TIMEOUT_MS }, () =>
       ),
     );
     expect(folded(rangeRows[1] ?? '')).toContain(formatUsd(range.npvUsd.p50));
+    // With a shared bias of ± 20 %: the same as Node's again.
+    await page.getByLabel('Shared bias on the estimates').selectOption('0.2');
+    await page.getByRole('button', { name: 'Work out the range' }).click();
+    await page
+      .getByRole('status')
+      .filter({ hasText: 'a shared bias of ± 20 %' })
+      .waitFor({ timeout: 30_000 });
+    const biased = programRange(
+      files.value.files,
+      { draws: 1000, seed: 1, programBias: 0.2 },
+      lookupOf(files.value.libraryTypes),
+    );
+    const biasedRows = await page.locator('#portfolio-range-table tbody tr').allTextContents();
+    expect(folded(biasedRows[0] ?? '')).toContain(formatUsd(biased.annualSavingsUsd.p90));
     expect(await axeViolations(page)).toEqual([]);
     await page.screenshot({ path: join(SCREENSHOTS, 'portfolio.png'), fullPage: true });
 

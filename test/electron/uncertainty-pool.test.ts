@@ -92,6 +92,20 @@ describe('uncertainty pool', () => {
     });
     expect(two.lastProgramRange?.annualSavingsUsd).toEqual(single.annualSavingsUsd);
     expect(two.lastProgramRange?.npvUsd).toEqual(single.npvUsd);
+    // A program-wide bias: the pool and the one-thread path again agree.
+    await two.run({
+      homes: HOMES,
+      options: { draws: OPTIONS.draws, seed: OPTIONS.seed, histogramBins: 0 },
+      programTotals: true,
+      programBias: 0.2,
+    });
+    const biased = programRange(HOMES, {
+      draws: OPTIONS.draws,
+      seed: OPTIONS.seed,
+      programBias: 0.2,
+    });
+    expect(two.lastProgramRange?.annualSavingsUsd).toEqual(biased.annualSavingsUsd);
+    expect(two.lastProgramRange?.programBias).toBe(0.2);
   });
 
   it('equals each home run in this thread with its place in the list as its stream', async () => {

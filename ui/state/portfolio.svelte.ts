@@ -35,6 +35,8 @@ export class PortfolioState {
   rangeStatus = $state<'idle' | 'running' | 'ready' | 'failed'>('idle');
   rangeFailure = $state<string | null>(null);
   rangeDraws = $state(1000);
+  /** A program-wide bias's ± fraction on every home's estimates; 0 for homes independent. */
+  rangeBias = $state(0);
   rangeSeed = 1;
 
   async runRange(): Promise<void> {
@@ -48,7 +50,11 @@ export class PortfolioState {
     const outcome = await runChoicesJob({
       kind: 'program',
       inputs: { homeFiles: files.value.files, libraryTypes: files.value.libraryTypes },
-      request: { draws: this.rangeDraws, seed: this.rangeSeed },
+      request: {
+        draws: this.rangeDraws,
+        seed: this.rangeSeed,
+        ...(this.rangeBias > 0 ? { programBias: this.rangeBias } : {}),
+      },
     });
     if (outcome.ok) {
       this.range = outcome.value;

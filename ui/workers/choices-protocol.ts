@@ -33,7 +33,7 @@ export type ChoicesJob =
       kind: 'program';
       /** A portfolio's home files (home i draws on stream i) and the project's library. */
       inputs: { homeFiles: readonly unknown[]; libraryTypes: readonly MeasureType[] };
-      request: { draws: number; seed: number };
+      request: { draws: number; seed: number; programBias?: number };
     };
 
 export type ChoicesValue =
