@@ -105,7 +105,11 @@ export function evaluateHome(input: unknown, options: EvaluateOptions = {}): Eva
 }
 
 /** Leak shares for a home file that gives none, from the default split and its work scope. */
-function assumedSharesFor(home: HomeFile, fit: LeakageFit, library: MeasureLookup): LeakShares {
+export function assumedSharesFor(
+  home: HomeFile,
+  fit: LeakageFit,
+  library: MeasureLookup,
+): LeakShares {
   const expectedByLocation: Partial<Record<LeakLocation, number>> = {};
   const noLocationNeeded = { ceiling: 0, wall: 0, floor: 0, flue: 0 };
   for (const measure of home.measures) {

@@ -19,16 +19,16 @@
  *   is the one `evaluateHome` throws first.
  * test/core/uncertainty.test.ts holds it to `evaluateHome` on varied and broken homes.
  */
-import { evaluateHome, fitOfTest, type EvaluateOptions, type Evaluation } from '../evaluate.ts';
 import {
-  assumedLeakShares,
-  buildHomeModel,
-  type HomeModel,
-  type LeakageByLocation,
-} from '../home-model.ts';
-import type { LeakageFit } from '../leakage.ts';
-import { SHIPPED_LIBRARY, type MeasureLookup } from '../measure-library.ts';
-import { estimateReductionCfm50, prepareMeasures, type PreparedMeasure } from '../measures.ts';
+  assumedSharesFor,
+  evaluateHome,
+  fitOfTest,
+  type EvaluateOptions,
+  type Evaluation,
+} from '../evaluate.ts';
+import { buildHomeModel, type HomeModel } from '../home-model.ts';
+import { SHIPPED_LIBRARY } from '../measure-library.ts';
+import { prepareMeasures, type PreparedMeasure } from '../measures.ts';
 import { buildPriceBook, type PriceBook } from '../plan/prices.ts';
 import { sequenceMeasures, type SequencedPlan } from '../plan/sequence.ts';
 import {
@@ -40,13 +40,7 @@ import {
 } from '../plan/step.ts';
 import { ventilationAfterPackage } from '../plan/ventilation-fan.ts';
 import { assessSafety } from '../safety.ts';
-import {
-  parseHomeFile,
-  type HomeFile,
-  type LeakLocation,
-  type LeakShares,
-  type Range,
-} from '../schema.ts';
+import { parseHomeFile, type HomeFile, type Range } from '../schema.ts';
 
 /** A home's package and what its kernel is compiled from. */
 export interface HomePackage {
@@ -182,24 +176,4 @@ function moneyCannotRefuse(
   return [...valued, ...ranged].every(
     ({ saved }) => saved.coolingKwh + saved.ventilationFanKwh === 0,
   );
-}
-
-/**
- * Leak shares for a home file that gives none, from the default split and its work scope:
- * `evaluateHome`'s own rule (a private helper of core/evaluate.ts), step for step.
- */
-function assumedSharesFor(home: HomeFile, fit: LeakageFit, library: MeasureLookup): LeakShares {
-  const expectedByLocation: Partial<Record<LeakLocation, number>> = {};
-  const noLocationNeeded: LeakageByLocation = { ceiling: 0, wall: 0, floor: 0, flue: 0 };
-  for (const measure of home.measures) {
-    const type = library.find(measure.type);
-    if (!type || measure.status === 'declined' || measure.shareOfLocation) continue;
-    const location = measure.location ?? type.location;
-    const { range } = estimateReductionCfm50(measure, type, {
-      exponentN: fit.exponentN,
-      testIn: noLocationNeeded,
-    });
-    expectedByLocation[location] = (expectedByLocation[location] ?? 0) + range.likely;
-  }
-  return assumedLeakShares({ cfm50: fit.cfm50, expectedByLocation });
 }
