@@ -8,7 +8,7 @@
  * Sources: axe-core's default rule set (WCAG 2.x A and AA); the W3C Content Security Policy
  * Level 3 `securitypolicyviolation` event.
  */
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Papa from 'papaparse';
 import type { Page } from 'playwright-core';
@@ -46,14 +46,6 @@ async function figure(page: Page, term: string): Promise<string> {
   return folded(await value.textContent());
 }
 
-async function openPortfolio(): Promise<WatchedPage> {
-  const watched = await rig.open();
-  await watched.page.getByRole('link', { name: 'Portfolio' }).click();
-  await watched.page.getByRole('heading', { level: 1, name: 'Portfolio' }).waitFor();
-  await watched.page.locator('#portfolio-types-table').waitFor();
-  return watched;
-}
-
 beforeAll(async () => {
   rig = await startRig('sealwork-e2e-portfolio-');
   demo = rig.project.store.read((read) => listHomes(read)).filter((row) => row.isDemo);
@@ -62,9 +54,23 @@ beforeAll(async () => {
 afterAll(() => rig.close());
 
 describe('the Portfolio screen in chromium', { timeout: TEST_TIMEOUT_MS }, () => {
-  it('shows the totals and the figures by type the Node host gives, and follows a filter', async () => {
-    const watched = await openPortfolio();
+  it('imports the demo portfolio CSV, shows the totals and figures by type the Node host gives, and follows a filter', async () => {
+    // The demo program's homes as a portfolio CSV, imported through the Homes screen.
+    const exported = callChannel({ store: rig.project.store }, 'portfolio.homesCsv', {});
+    if (!exported.ok) throw new Error(exported.error.message);
+    const csvPath = join(SCREENSHOTS, '..', 'demo-portfolio.csv');
+    writeFileSync(csvPath, exported.value.csv);
+    const before = hostPortfolio({ filter: {} }).figures.totals.homes;
+    const watched = await rig.open();
     const { page } = watched;
+    await page.getByRole('button', { name: 'Import homes' }).click();
+    await page.getByLabel('Portfolio CSV (.csv)').setInputFiles(csvPath);
+    const rowsIn = exported.value.csv.trimEnd().split('\n').length - 1;
+    await page.getByRole('button', { name: `Import ${rowsIn} homes` }).click();
+    await page.getByText(`Imported ${rowsIn} homes from demo-portfolio.csv.`).waitFor();
+    await page.getByRole('link', { name: 'Portfolio' }).click();
+    await page.locator('#portfolio-types-table').waitFor();
+    expect(hostPortfolio({ filter: {} }).figures.totals.homes).toBe(before + rowsIn);
     const expected = hostPortfolio({ filter: {} });
     const totals = expected.figures.totals;
     expect(await figure(page, 'Homes')).toBe(formatNumber(totals.homes));
