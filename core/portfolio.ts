@@ -89,7 +89,13 @@ export interface PortfolioFigures {
     cfm50After: Spread | null;
     ach50Before: Spread | null;
     ach50After: Spread | null;
-    histograms: { ach50Before: Histogram; ach50After: Histogram };
+    /** Before and after share their bins, so the two read on one axis. */
+    histograms: {
+      ach50Before: Histogram;
+      ach50After: Histogram;
+      cfm50Before: Histogram;
+      cfm50After: Histogram;
+    };
   };
   byType: MeasureTypeFigures[];
   supplyCurve: SupplyStep[];
@@ -281,6 +287,26 @@ export function portfolioRowOf(home: PortfolioHome): PortfolioRow {
   };
 }
 
+/** Histograms of two sets of values over one set of bins (those of both together). */
+function sharedHistograms(
+  first: readonly number[],
+  second: readonly number[],
+): [Histogram, Histogram] {
+  const shared = histogramOf(Float64Array.from([...first, ...second]), LEAKAGE_HISTOGRAM_BINS);
+  const binned = (values: readonly number[]): Histogram => {
+    const counts = new Array<number>(Math.max(0, shared.edges.length - 1)).fill(0);
+    const low = shared.edges[0] ?? 0;
+    const high = shared.edges[shared.edges.length - 1] ?? low;
+    const width = counts.length > 0 ? (high - low) / counts.length : 0;
+    for (const value of values) {
+      const bin = width > 0 ? Math.min(counts.length - 1, Math.floor((value - low) / width)) : 0;
+      if (counts.length > 0) counts[bin] = (counts[bin] ?? 0) + 1;
+    }
+    return { edges: shared.edges, counts };
+  };
+  return [binned(first), binned(second)];
+}
+
 /**
  * The figures of a portfolio.
  *
@@ -298,20 +324,10 @@ export function portfolioFigures(homes: readonly PortfolioHome[]): PortfolioFigu
   const ach = (cfm50: number, volumeFt3: number) => (cfm50 * 60) / volumeFt3;
   const ach50Before = homes.map((home) => ach(home.report.package.cfm50Before, home.volumeFt3));
   const ach50After = homes.map((home) => ach(home.report.package.cfm50After, home.volumeFt3));
-  // One set of bins for both, so before and after read on the same axis.
-  const both = Float64Array.from([...ach50Before, ...ach50After]);
-  const shared = histogramOf(both, LEAKAGE_HISTOGRAM_BINS);
-  const binned = (values: readonly number[]): Histogram => {
-    const counts = new Array<number>(Math.max(0, shared.edges.length - 1)).fill(0);
-    const low = shared.edges[0] ?? 0;
-    const high = shared.edges[shared.edges.length - 1] ?? low;
-    const width = counts.length > 0 ? (high - low) / counts.length : 0;
-    for (const value of values) {
-      const bin = width > 0 ? Math.min(counts.length - 1, Math.floor((value - low) / width)) : 0;
-      if (counts.length > 0) counts[bin] = (counts[bin] ?? 0) + 1;
-    }
-    return { edges: shared.edges, counts };
-  };
+  const cfm50Before = homes.map((home) => home.report.package.cfm50Before);
+  const cfm50After = homes.map((home) => home.report.package.cfm50After);
+  const [achBeforeBins, achAfterBins] = sharedHistograms(ach50Before, ach50After);
+  const [cfmBeforeBins, cfmAfterBins] = sharedHistograms(cfm50Before, cfm50After);
   return {
     totals: totalsOf(homes),
     packageSir: spreadOfValues(withEnergy.map((home) => home.report.package.sir ?? 0)),
@@ -326,11 +342,16 @@ export function portfolioFigures(homes: readonly PortfolioHome[]): PortfolioFigu
         : energyMeasures.filter((measure) => (measure.sir ?? 0) >= 1).length /
           energyMeasures.length,
     leakage: {
-      cfm50Before: spreadOfValues(homes.map((home) => home.report.package.cfm50Before)),
-      cfm50After: spreadOfValues(homes.map((home) => home.report.package.cfm50After)),
+      cfm50Before: spreadOfValues(cfm50Before),
+      cfm50After: spreadOfValues(cfm50After),
       ach50Before: spreadOfValues(ach50Before),
       ach50After: spreadOfValues(ach50After),
-      histograms: { ach50Before: binned(ach50Before), ach50After: binned(ach50After) },
+      histograms: {
+        ach50Before: achBeforeBins,
+        ach50After: achAfterBins,
+        cfm50Before: cfmBeforeBins,
+        cfm50After: cfmAfterBins,
+      },
     },
     byType: byTypeOf(homes),
     supplyCurve: supplyCurveOf(homes),

@@ -110,6 +110,18 @@ describe('portfolio figures', () => {
     expect(histogram.ach50Before.counts.reduce((a, b) => a + b, 0)).toBe(HOMES);
     expect(histogram.ach50After.counts.reduce((a, b) => a + b, 0)).toBe(HOMES);
     expect(histogram.ach50After.edges).toEqual(histogram.ach50Before.edges);
+    expect(histogram.cfm50Before.counts.reduce((a, b) => a + b, 0)).toBe(HOMES);
+    expect(histogram.cfm50After.edges).toEqual(histogram.cfm50Before.edges);
+    // Each home in its own bin: the counts of the values inside each bin's edges.
+    const cfm50 = homes.map((home) => home.report.package.cfm50Before);
+    const edges = histogram.cfm50Before.edges;
+    histogram.cfm50Before.counts.forEach((count, bin) => {
+      const low = edges[bin] ?? 0;
+      const high = edges[bin + 1] ?? 0;
+      const last = bin === histogram.cfm50Before.counts.length - 1;
+      const inside = cfm50.filter((value) => value >= low && (last ? value <= high : value < high));
+      expect(count, `bin ${bin}`).toBe(inside.length);
+    });
   });
 
   it('refuses a home without a volume, naming it', () => {

@@ -120,6 +120,15 @@ describe('the Portfolio screen in chromium', { timeout: TEST_TIMEOUT_MS }, () =>
     );
     const biasedRows = await page.locator('#portfolio-range-table tbody tr').allTextContents();
     expect(folded(biasedRows[0] ?? '')).toContain(formatUsd(biased.annualSavingsUsd.p90));
+    await page.getByLabel('Leakage as').selectOption('CFM50');
+    await expect
+      .poll(() => paintedPixels(page, 'section[aria-labelledby="portfolio-spread"] canvas'))
+      .toBeGreaterThan(500);
+    expect(
+      await page
+        .locator('section[aria-labelledby="portfolio-spread"] [role="img"]')
+        .getAttribute('aria-label'),
+    ).toContain('Homes by CFM50');
     expect(await axeViolations(page)).toEqual([]);
     await page.screenshot({ path: join(SCREENSHOTS, 'portfolio.png'), fullPage: true });
 
