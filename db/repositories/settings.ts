@@ -1,6 +1,7 @@
 /** The user's settings, each with a default until changed. */
 import { z } from 'zod';
 import { RANKINGS } from '../../core/schema.ts';
+import { JOB_STATUSES, LEAKINESS_BANDS } from './homes.ts';
 import type { ReadAccess, WriteAccess } from '../store.ts';
 import { readJson, validated } from './_rows.ts';
 
@@ -11,6 +12,24 @@ export const settingsSchema = z.strictObject({
   laborRateUsdPerHour: z.number().min(0).max(1000),
   markupFraction: z.number().min(0).max(5),
   electricityKgCo2PerKwh: z.number().min(0).max(2).nullable(),
+  /** The Portfolio's saved choices of homes, each a name and the filters it stands for. */
+  portfolioSelections: z
+    .array(
+      z.strictObject({
+        name: z.string().trim().min(1).max(100),
+        filter: z.strictObject({
+          town: z.string().max(100).optional(),
+          heatingFuel: z.string().max(40).optional(),
+          jobStatus: z.enum(JOB_STATUSES).optional(),
+          leakiness: z.enum(LEAKINESS_BANDS).optional(),
+        }),
+      }),
+    )
+    .max(50)
+    .refine(
+      (selections) => new Set(selections.map((entry) => entry.name)).size === selections.length,
+      'expected each selection to have a name of its own',
+    ),
 });
 export type Settings = z.output<typeof settingsSchema>;
 
@@ -27,6 +46,7 @@ export const DEFAULT_SETTINGS: Settings = {
   laborRateUsdPerHour: 58,
   markupFraction: 0.15,
   electricityKgCo2PerKwh: null,
+  portfolioSelections: [],
 };
 
 export function getSettings(read: ReadAccess): Settings {

@@ -142,6 +142,22 @@ describe('the Portfolio screen in chromium', { timeout: TEST_TIMEOUT_MS }, () =>
     expect(await figure(page, 'Cost')).toBe(
       formatUsd(filtered.figures.totals.costUsd, { cents: true }),
     );
+    // The filters saved under a name, then chosen again after the filters changed.
+    await page.getByLabel('Save these filters as').fill('One fuel');
+    await page.getByRole('button', { name: 'Save', exact: true }).click();
+    await page.getByRole('status').filter({ hasText: 'Saved “One fuel”.' }).waitFor();
+    await page.getByLabel('Heating fuel').selectOption('');
+    await expect
+      .poll(() => figure(page, 'Homes'))
+      .not.toBe(formatNumber(filtered.figures.totals.homes));
+    await page.getByLabel('Saved choice').selectOption('One fuel');
+    await expect
+      .poll(() => figure(page, 'Homes'))
+      .toBe(formatNumber(filtered.figures.totals.homes));
+    const settings = callChannel({ store: rig.project.store }, 'settings.get', {});
+    expect(settings.ok && settings.value.portfolioSelections).toEqual([
+      { name: 'One fuel', filter: { heatingFuel: fuel } },
+    ]);
     expectHealthy(watched);
     await watched.context.close();
   });

@@ -11,6 +11,7 @@ import type { LoadStatus } from './homes.svelte.ts';
 
 export type PortfolioReply = ChannelResponse<'portfolio.evaluate'>;
 type Filter = NonNullable<ChannelRequest<'portfolio.evaluate'>['filter']>;
+type Selection = ChannelResponse<'settings.get'>['portfolioSelections'][number];
 
 /** The filters as the boxes hold them; '' is "any". */
 export interface PortfolioFilterText {
@@ -92,6 +93,51 @@ export class PortfolioState {
         ? 'No factor rests on enough tested homes yet (5 or more with the type), so nothing was applied.'
         : `Applied ${factors.length} ${factors.length === 1 ? 'factor' : 'factors'} to the estimates of ${homes} not yet started; their plans say so.`
       : `Removed the factors from ${homes}; their estimates are as they were.`;
+    await this.load();
+  }
+
+  /** The saved choices of homes (the project's settings). */
+  selections = $state.raw<Selection[]>([]);
+  selectionName = $state('');
+  selectionMessage = $state<string | null>(null);
+
+  async loadSelections(): Promise<void> {
+    const reply = await call('settings.get', {});
+    if (reply.ok) this.selections = reply.value.portfolioSelections;
+  }
+
+  /** Saves the filters as they stand under the name typed (replacing one of that name). */
+  async saveSelection(): Promise<void> {
+    const name = this.selectionName.trim();
+    if (name === '') {
+      this.selectionMessage = 'Not saved: type a name for these filters first.';
+      return;
+    }
+    const next = [
+      ...this.selections.filter((entry) => entry.name !== name),
+      { name, filter: this.requestFilter() },
+    ];
+    const reply = await call('settings.update', { portfolioSelections: next });
+    if (!reply.ok) {
+      this.selectionMessage = `Not saved: ${reply.error.message}`;
+      return;
+    }
+    this.selections = reply.value.portfolioSelections;
+    this.selectionName = '';
+    this.selectionMessage = `Saved “${name}”.`;
+  }
+
+  /** Puts a saved choice's filters in the boxes and evaluates its homes. */
+  async useSelection(name: string): Promise<void> {
+    const chosen = this.selections.find((entry) => entry.name === name);
+    if (!chosen) return;
+    this.filter = {
+      town: chosen.filter.town ?? '',
+      heatingFuel: chosen.filter.heatingFuel ?? '',
+      jobStatus: chosen.filter.jobStatus ?? '',
+      leakiness: chosen.filter.leakiness ?? '',
+    };
+    this.selectionMessage = null;
     await this.load();
   }
 

@@ -12,7 +12,8 @@ import { parseNumber } from '../text.ts';
 export type Settings = ChannelResponse<'settings.get'>;
 export type NumberSettingKey =
   'discountRateReal' | 'laborRateUsdPerHour' | 'markupFraction' | 'electricityKgCo2PerKwh';
-export type SettingKey = keyof Settings;
+/** The settings this screen edits: the Portfolio keeps its saved choices itself. */
+export type SettingKey = Exclude<keyof Settings, 'portfolioSelections'>;
 
 /** A number setting as the screen shows it: its label, unit, hint and display scale. */
 export interface NumberSettingSpec {
