@@ -71,6 +71,8 @@ export interface Parsed {
   out: string | undefined;
   /** portfolio: a program-wide bias's ± fraction, as typed. */
   bias: string | undefined;
+  /** weather: the degree days' base, °F, as typed. */
+  weather: { baseF?: string };
   /** bills: the temperature file, the day the work was done and the estimate. */
   bills: { temperatures?: string; workDone?: string; estimate?: string };
 }

@@ -10,6 +10,7 @@
  */
 import { parseArgs } from 'node:util';
 import { runBills } from './cli-bills.ts';
+import { runWeather } from './cli-weather.ts';
 import { InputError } from '../core/errors.ts';
 import { DbError } from '../db/errors.ts';
 import {
@@ -62,6 +63,9 @@ Usage:
   sealwork bills BILLS.csv --temperatures TEMPS.csv --work-done YYYY-MM-DD [--estimate N] [--json]
                                             what the bills say the work saved: degree-day fits
                                             before and after (Guideline 14 statistics)
+  sealwork weather FILE [--base-f 65] [--json]
+                                            an EPW or TMY3 weather file: place, hours, HDD and
+                                            CDD at the base, by month, design temperatures
   sealwork backup FILE                      copy the whole project to FILE
   sealwork restore FILE                     replace the project with a backup
   sealwork demo [--json]                    evaluate the invented demo homes
@@ -98,6 +102,7 @@ function parse(argv: readonly string[]): Parsed {
       'work-done': { type: 'string' },
       estimate: { type: 'string' },
       bias: { type: 'string' },
+      'base-f': { type: 'string' },
       out: { type: 'string' },
       draws: { type: 'string' },
       seed: { type: 'string' },
@@ -121,6 +126,7 @@ function parse(argv: readonly string[]): Parsed {
     choices: choicesOfFlags(values),
     all: values.all === true,
     bias: values.bias,
+    weather: values['base-f'] === undefined ? {} : { baseF: values['base-f'] },
     bills: {
       ...(values.temperatures === undefined ? {} : { temperatures: values.temperatures }),
       ...(values['work-done'] === undefined ? {} : { workDone: values['work-done'] }),
@@ -200,6 +206,8 @@ async function dispatch(parsed: Parsed, output: CliOutput): Promise<number> {
       return runPortfolio(parsed, output);
     case 'bills':
       return runBills(parsed, output);
+    case 'weather':
+      return runWeather(parsed, output);
     case 'backup':
       return runBackup(parsed, output);
     case 'restore':
