@@ -37,3 +37,9 @@ export {
 } from './weather/degree-days.ts';
 export type { DesignTemperature, DesignTemperatures } from './weather/design-temperatures.ts';
 export { designTemperatures } from './weather/design-temperatures.ts';
+export {
+  CLIMATE_BASE_F,
+  climateFromWeather,
+  COOLING_INDOOR_F,
+  HEATING_INDOOR_F,
+} from './weather/climate.ts';

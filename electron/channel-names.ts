@@ -32,6 +32,7 @@ export const CHANNEL_NAMES = [
   'clients.create',
   'climates.list',
   'climates.save',
+  'climates.importWeather',
   'priceSets.list',
   'priceSets.save',
   'settings.get',

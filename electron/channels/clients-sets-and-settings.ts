@@ -3,6 +3,7 @@
  * price sets homes link to, and the project's settings.
  */
 import { z } from 'zod';
+import { climateFromWeather, detectAndParseWeather } from '../../core/weather.ts';
 import type { Climate, HomeFile } from '../../core/schema.ts';
 import { createClient, listClients, type Client } from '../../db/repositories/clients.ts';
 import { climates, priceSets, type NamedSet } from '../../db/repositories/reusable-sets.ts';
@@ -54,6 +55,22 @@ export const clientSetAndSettingChannels = {
     handle: ({ store }) => store.read((read) => climates.list(read)),
   }),
   'climates.save': saveChannel(climates),
+  // A climate made from an hourly weather file (EPW or TMY3) and stored; the file is read only.
+  'climates.importWeather': channel({
+    request: z.strictObject({
+      text: z.string().max(8 * 1024 * 1024),
+      fileName: z.string().max(300).optional(),
+      name: z.string().trim().min(1).max(200).optional(),
+    }),
+    response: z.strictObject({ id, climate: recordOf<Climate>() }),
+    handle: ({ store }, request) => {
+      const climate = climateFromWeather(
+        detectAndParseWeather(request.text, request.fileName),
+        request.name,
+      );
+      return { id: store.write((write) => climates.create(write, climate.name, climate)), climate };
+    },
+  }),
   'priceSets.list': channel({
     request: nothing,
     response: z.array(recordOf<NamedSet<HomeFile['prices']>>()),

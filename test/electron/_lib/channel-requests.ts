@@ -4,6 +4,7 @@
  * that the handlers check themselves. The type makes a new channel without a request here a
  * compile error. The house is the invented base house of test/_lib/base-home.ts.
  */
+import { tmy3Year } from '../../_lib/weather-files.ts';
 import type { ChannelName, ChannelRequest } from '../../../electron/channels.ts';
 import { measureTypeEditSchema } from '../../../core/measure-library.ts';
 import { climateSchema, homeFileSchema, pricesSchema } from '../../../core/schema.ts';
@@ -199,6 +200,11 @@ export function validRequests(ids: KnownIds): ValidRequests {
     'clients.list': {},
     'clients.create': { name: 'Channel Client', phone: '555-0101', email: 'c@example.com' },
     'climates.list': {},
+    'climates.importWeather': {
+      text: tmy3Year((day) => (day % 2 === 0 ? 5 : 30)),
+      fileName: 'generated.csv',
+      name: 'Channel test weather',
+    },
     'climates.save': { id: ids.climateId, name: 'Channel climate', data: base.climate },
     'priceSets.list': {},
     'priceSets.save': { id: ids.priceSetId, name: 'Channel prices', data: base.prices },
