@@ -17,10 +17,10 @@ import {
   type LeakageFit,
 } from './leakage.ts';
 import { SHIPPED_LIBRARY, type MeasureLookup } from './measure-library.ts';
-import { estimateReductionCfm50, prepareMeasures } from './measures.ts';
+import { estimateReductionCfm50, prepareMeasures, type PreparedMeasure } from './measures.ts';
 import { FUEL_FACTS } from './fuels.ts';
 import { planHome, type PlanResult } from './plan.ts';
-import { buildPriceBook } from './plan/prices.ts';
+import { buildPriceBook, type PriceBook } from './plan/prices.ts';
 import { assessSafety, type Caution } from './safety.ts';
 import {
   parseHomeFile,
@@ -55,13 +55,23 @@ export interface EvaluateOptions {
   library?: MeasureLookup;
 }
 
+/** A home ready to plan: parsed, its test fitted, its model, prices and measures made. */
+export interface PreparedHome {
+  home: HomeFile;
+  fit: LeakageFit;
+  model: HomeModel;
+  prices: PriceBook;
+  measures: PreparedMeasure[];
+}
+
 /**
- * Evaluates a home.
+ * The steps every plan of a home starts with (the full evaluation, and a portfolio's quicker
+ * package): the home file checked, the test fitted, the model, the prices and the measures
+ * (with the home's calibration, when it has one).
  *
- * @param input - a home file (parsed or raw JSON); raw input is validated first
  * @throws InputError listing every problem with the input
  */
-export function evaluateHome(input: unknown, options: EvaluateOptions = {}): Evaluation {
+export function prepareHome(input: unknown, options: EvaluateOptions = {}): PreparedHome {
   const library = options.library ?? SHIPPED_LIBRARY;
   const home = parseHomeFile(input);
   const fit = fitOfTest(home.leakageTest);
@@ -73,6 +83,17 @@ export function evaluateHome(input: unknown, options: EvaluateOptions = {}): Eva
     library,
     ...(home.calibration ? { calibration: home.calibration } : {}),
   });
+  return { home, fit, model, prices, measures };
+}
+
+/**
+ * Evaluates a home.
+ *
+ * @param input - a home file (parsed or raw JSON); raw input is validated first
+ * @throws InputError listing every problem with the input
+ */
+export function evaluateHome(input: unknown, options: EvaluateOptions = {}): Evaluation {
+  const { home, fit, model, prices, measures } = prepareHome(input, options);
   const plan = planHome({ model, prices, measures, ranking: home.economics.ranking ?? 'sir' });
   const pkg = plan.package;
   const included = plan.entries.filter((entry) => entry.included);

@@ -19,17 +19,10 @@
  *   is the one `evaluateHome` throws first.
  * test/core/uncertainty.test.ts holds it to `evaluateHome` on varied and broken homes.
  */
-import {
-  assumedSharesFor,
-  evaluateHome,
-  fitOfTest,
-  type EvaluateOptions,
-  type Evaluation,
-} from '../evaluate.ts';
-import { buildHomeModel, type HomeModel } from '../home-model.ts';
-import { SHIPPED_LIBRARY } from '../measure-library.ts';
-import { prepareMeasures, type PreparedMeasure } from '../measures.ts';
-import { buildPriceBook, type PriceBook } from '../plan/prices.ts';
+import { evaluateHome, prepareHome, type EvaluateOptions, type Evaluation } from '../evaluate.ts';
+import type { HomeModel } from '../home-model.ts';
+import type { PreparedMeasure } from '../measures.ts';
+import type { PriceBook } from '../plan/prices.ts';
 import { sequenceMeasures, type SequencedPlan } from '../plan/sequence.ts';
 import {
   applyMeasure,
@@ -40,7 +33,7 @@ import {
 } from '../plan/step.ts';
 import { ventilationAfterPackage } from '../plan/ventilation-fan.ts';
 import { assessSafety } from '../safety.ts';
-import { parseHomeFile, type HomeFile, type Range } from '../schema.ts';
+import type { HomeFile, Range } from '../schema.ts';
 
 /** A home's package and what its kernel is compiled from. */
 export interface HomePackage {
@@ -81,17 +74,7 @@ export function packageOfEvaluation(evaluation: Evaluation): HomePackage {
 
 /** The package without the plan's money, or null when the money might refuse the home. */
 function quickPackage(input: unknown, options: EvaluateOptions): HomePackage | null {
-  const library = options.library ?? SHIPPED_LIBRARY;
-  const home = parseHomeFile(input);
-  const fit = fitOfTest(home.leakageTest);
-  const model = buildHomeModel(home, fit, home.leakShares ?? assumedSharesFor(home, fit, library));
-  const prices = buildPriceBook(home);
-  const measures = prepareMeasures(home.measures, {
-    exponentN: fit.exponentN,
-    testIn: model.testIn,
-    library,
-    ...(home.calibration ? { calibration: home.calibration } : {}),
-  });
+  const { home, model, prices, measures } = prepareHome(input, options);
   const start = stateOf(model, model.testIn);
   const sequenced = sequenceMeasures({
     model,
