@@ -88,6 +88,18 @@ describe('the Portfolio screen in chromium', { timeout: TEST_TIMEOUT_MS }, () =>
     await expect
       .poll(() => paintedPixels(page, 'section[aria-labelledby="portfolio-supply"] canvas'))
       .toBeGreaterThan(500);
+    // The chart saves as a PNG image (its file starts with the PNG signature, RFC 2083).
+    const [chartDownload] = await Promise.all([
+      page.waitForEvent('download'),
+      page
+        .locator('section[aria-labelledby="portfolio-supply"]')
+        .getByRole('button', { name: 'Save chart as PNG' })
+        .click(),
+    ]);
+    const chartPath = join(SCREENSHOTS, '..', chartDownload.suggestedFilename());
+    await chartDownload.saveAs(chartPath);
+    expect(chartDownload.suggestedFilename()).toBe('sealwork-supply-curve.png');
+    expect([...readFileSync(chartPath).subarray(0, 8)]).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
 
     // The program's range, drawn in the page's worker, as Node draws it from the same files.
     await page.getByRole('button', { name: 'Work out the range' }).click();
