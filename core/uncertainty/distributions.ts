@@ -142,10 +142,14 @@ function betaContinuedFraction(x: number, a: number, b: number): number {
  * @param b - shape β > 0
  */
 export function regularizedIncompleteBeta(x: number, a: number, b: number): number {
+  return incompleteBetaWithNorm(x, a, b, logGamma(a + b) - logGamma(a) - logGamma(b));
+}
+
+/** I_x(a, b) given log(Γ(a+b)/(Γ(a)Γ(b))), so a table of quantiles works it out once. */
+function incompleteBetaWithNorm(x: number, a: number, b: number, logNorm: number): number {
   if (x <= 0) return 0;
   if (x >= 1) return 1;
-  const logFront =
-    logGamma(a + b) - logGamma(a) - logGamma(b) + a * Math.log(x) + b * Math.log(1 - x);
+  const logFront = logNorm + a * Math.log(x) + b * Math.log(1 - x);
   const front = Math.exp(logFront);
   // The fraction converges fast below the mean; above it, use I_x(a,b) = 1 − I_{1−x}(b,a).
   if (x < (a + 1) / (a + b + 2)) return (front * betaContinuedFraction(x, a, b)) / a;
@@ -176,7 +180,7 @@ export function betaQuantileTable(alpha: number, beta: number, steps: number): F
     let upper = 1;
     let x = previous > 0 ? previous : target;
     for (let step = 0; step < NEWTON_STEPS; step += 1) {
-      const error = regularizedIncompleteBeta(x, alpha, beta) - target;
+      const error = incompleteBetaWithNorm(x, alpha, beta, logNorm) - target;
       if (error > 0) upper = x;
       else lower = x;
       const density = betaDensity(x, alpha, beta, logNorm);

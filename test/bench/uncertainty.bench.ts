@@ -409,7 +409,8 @@ async function portfolioBench(): Promise<void> {
           `(${((100 * run.workerCpuS) / (run.wallS * run.workers)).toFixed(0)} %: the rest they waited for a core)`;
     console.log(
       `  ${label}: this process used ${run.processCpuS.toFixed(2)} s of CPU, ` +
-        `${(run.processCpuS / run.wallS).toFixed(2)} cores on average; ${threadCpu}; ` +
+        `${(run.processCpuS / run.wallS).toFixed(2)} cores on average; its main thread (sending ` +
+        `homes, taking results) was busy ${run.mainThreadS.toFixed(2)} s; ${threadCpu}; ` +
         `their own clocks: planning ${run.planS.toFixed(2)} s, drawing ${run.drawS.toFixed(2)} s summed`,
     );
   }
@@ -424,10 +425,12 @@ async function poolRun(homes: readonly HomeFileInput[], workers: number) {
   await pool.run({ homes: homes.slice(0, 4 * workers), options: { draws: 10, seed: SEED } });
   const startS = (performance.now() - started) / 1000;
   const cpuBefore = process.cpuUsage();
+  const loopBefore = performance.eventLoopUtilization();
   started = performance.now();
   const results = await pool.run({ homes, options: PORTFOLIO_OPTIONS });
   const wallS = (performance.now() - started) / 1000;
   const cpu = process.cpuUsage(cpuBefore);
+  const mainThreadS = performance.eventLoopUtilization(loopBefore).active / 1000;
   const timing = pool.lastRunTiming;
   await pool.close();
   return {
@@ -435,6 +438,7 @@ async function poolRun(homes: readonly HomeFileInput[], workers: number) {
     startS,
     wallS,
     processCpuS: (cpu.user + cpu.system) / 1e6,
+    mainThreadS,
     workerCpuS: timing.cpuMs === null ? null : timing.cpuMs / 1000,
     planS: timing.evaluateMs / 1000,
     drawS: timing.drawMs / 1000,
