@@ -43,3 +43,28 @@ export {
   COOLING_INDOOR_F,
   HEATING_INDOOR_F,
 } from './weather/climate.ts';
+export {
+  GRAINS_PER_POUND,
+  grainsPerPound,
+  humidityRatioFromDewPoint,
+  humidityRatioFromRelativeHumidity,
+  humidityRatioFromVaporPressure,
+  saturationVaporPressurePa,
+  WATER_TO_DRY_AIR_MOLAR_MASS_RATIO,
+} from './weather/psychrometrics.ts';
+export type {
+  HourlyAirflowCfm,
+  HourlyBasis,
+  HourlySeasons,
+  WeatherYear,
+} from './weather/hourly-airflow.ts';
+export {
+  checkHourlyBasis,
+  checkWeatherYear,
+  DEFAULT_HOURLY_BASIS,
+  hourlyAirflowMethod,
+  hourlySeasons,
+  indoorHumidityRatio,
+  INDOOR_COOLING_RELATIVE_HUMIDITY_PCT,
+  weatherYearOf,
+} from './weather/hourly-airflow.ts';
