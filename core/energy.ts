@@ -15,10 +15,40 @@ import { InputError } from './errors.ts';
 import { FUEL_FACTS } from './fuels.ts';
 import type { Climate, Cooling, Fuel, Heating } from './schema.ts';
 
-/** Mean air flows over the heating and the cooling season, cfm. */
+/**
+ * Mean air flows over the heating and the cooling season, cfm. Each mean is weighted as its
+ * load is summed: by the hours' degrees below (or above) the base, and for the latent load by
+ * the hours' humidity excess. With one flow a season (degree days) the latent flow is the
+ * cooling flow; hour by hour it is its own mean (`coolingLatentCfm`).
+ */
 export interface SeasonalAirflowCfm {
   heatingCfm: number;
   coolingCfm: number;
+  coolingLatentCfm?: number;
+}
+
+/**
+ * What a year's loads are summed over: degree days at the base the loads start from, the
+ * cooling hours' humidity excess, and the site's elevation (thinner air holds less heat).
+ */
+export interface SeasonTotals {
+  heatingDegreeDaysF: number;
+  coolingDegreeDaysF: number;
+  /** Σ over cooling hours of (W_out − W_in)⁺, grain/lb · h. */
+  latentGrainHours: number;
+  elevationFt: number;
+}
+
+/** A climate's season totals: its degree days at 65 °F and its cooling season's latent hours. */
+export function seasonTotalsOfClimate(
+  climate: Pick<Climate, 'hdd65F' | 'cdd65F' | 'elevationFt' | 'coolingSeason'>,
+): SeasonTotals {
+  return {
+    heatingDegreeDaysF: climate.hdd65F,
+    coolingDegreeDaysF: climate.cdd65F,
+    latentGrainHours: climate.coolingSeason?.latentGrainHours ?? 0,
+    elevationFt: climate.elevationFt,
+  };
 }
 
 /** The energy an air flow costs in a year, in the units the household pays for. */
@@ -39,7 +69,7 @@ export interface AnnualEnergy {
 
 /** The parts of a home the energy calculation needs. */
 export interface EnergyContext {
-  climate: Pick<Climate, 'hdd65F' | 'cdd65F' | 'elevationFt' | 'coolingSeason'>;
+  seasons: SeasonTotals;
   heating: Pick<Heating, 'fuel' | 'equipment' | 'efficiency' | 'distributionEfficiency'>;
   cooling: Pick<Cooling, 'seer' | 'distributionEfficiency'> | null;
   /** Grid CO2 factor, kg/kWh; 0 when unknown. */
@@ -169,25 +199,24 @@ export function annualEnergyOfAirflow(
   if (!(airflow.heatingCfm >= 0) || !(airflow.coolingCfm >= 0)) {
     throw InputError.at('airflow', 'expected air flows of at least 0 cfm');
   }
-  const { climate, heating, cooling } = context;
+  const { seasons, heating, cooling } = context;
   const heatingLoadBtu = seasonalSensibleLoadBtu({
     airflowCfm: airflow.heatingCfm,
-    degreeDaysF: climate.hdd65F,
-    elevationFt: climate.elevationFt,
+    degreeDaysF: seasons.heatingDegreeDaysF,
+    elevationFt: seasons.elevationFt,
   });
   let coolingLoadBtu = 0;
   let coolingKwh = 0;
   if (cooling) {
     coolingLoadBtu = seasonalSensibleLoadBtu({
       airflowCfm: airflow.coolingCfm,
-      degreeDaysF: climate.cdd65F,
-      elevationFt: climate.elevationFt,
+      degreeDaysF: seasons.coolingDegreeDaysF,
+      elevationFt: seasons.elevationFt,
     });
-    const latentGrainHours = climate.coolingSeason?.latentGrainHours ?? 0;
     coolingLoadBtu += seasonalLatentLoadBtu({
-      airflowCfm: airflow.coolingCfm,
-      latentGrainHours,
-      elevationFt: climate.elevationFt,
+      airflowCfm: airflow.coolingLatentCfm ?? airflow.coolingCfm,
+      latentGrainHours: seasons.latentGrainHours,
+      elevationFt: seasons.elevationFt,
     });
     coolingKwh = coolingKwhForLoad(coolingLoadBtu, cooling);
   }

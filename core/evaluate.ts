@@ -30,6 +30,8 @@ import {
   type LeakShares,
 } from './schema.ts';
 import { buildReport, type EvaluationReport } from './report.ts';
+import type { WeatherYear } from './weather/hourly-airflow.ts';
+import { hourlyClimateOf } from './weather/hourly-climate.ts';
 
 export interface Evaluation {
   home: HomeFile;
@@ -53,6 +55,8 @@ export function fitOfTest(test: HomeFile['leakageTest']): LeakageFit {
 export interface EvaluateOptions {
   /** The measure library to take defaults from (a project's edits); the shipped one by default. */
   library?: MeasureLookup;
+  /** The weather year of the home's climate, for a home planned hour by hour. */
+  weather?: WeatherYear;
 }
 
 /** A home ready to plan: parsed, its test fitted, its model, prices and measures made. */
@@ -75,7 +79,12 @@ export function prepareHome(input: unknown, options: EvaluateOptions = {}): Prep
   const library = options.library ?? SHIPPED_LIBRARY;
   const home = parseHomeFile(input);
   const fit = fitOfTest(home.leakageTest);
-  const model = buildHomeModel(home, fit, home.leakShares ?? assumedSharesFor(home, fit, library));
+  const model = buildHomeModel(
+    home,
+    fit,
+    home.leakShares ?? assumedSharesFor(home, fit, library),
+    hourlyClimateOf(home, fit.exponentN, options.weather),
+  );
   const prices = buildPriceBook(home);
   const measures = prepareMeasures(home.measures, {
     exponentN: fit.exponentN,

@@ -5,9 +5,11 @@
  */
 import {
   annualEnergyOfAirflow,
+  seasonTotalsOfClimate,
   type AnnualEnergy,
   type EnergyContext,
   type SeasonalAirflowCfm,
+  type SeasonTotals,
 } from './energy.ts';
 import { HOURS_PER_YEAR } from './constants.ts';
 import {
@@ -36,6 +38,30 @@ export const DEFAULT_FAN_WATTS_PER_CFM = 0.33;
 /** Watts in a kilowatt, to turn W·h into kWh. Exact by definition. */
 const WATTS_PER_KILOWATT = 1000;
 
+/**
+ * Where the model's weather comes from: the climate's degree days and season means, or a
+ * year of hourly weather worked hour by hour.
+ */
+export type ClimateBasis =
+  | { kind: 'degreeDays'; climateName: string }
+  | {
+      kind: 'hourly';
+      /** The weather year's name (its place, as the stored climate names it). */
+      weatherName: string;
+      hours: number;
+      heatingBalancePointF: number;
+      coolingBalancePointF: number;
+    };
+
+/** A home's hourly weather, made ready for the model (core/weather/hourly-climate.ts). */
+export interface HourlyClimate {
+  basis: Extract<ClimateBasis, { kind: 'hourly' }>;
+  /** Degree days at the balance points and the latent hours, from the hours. */
+  seasons: SeasonTotals;
+  /** Natural infiltration of a leakage state: each season's mean weighted as its load. */
+  airflowOf(leakage: LeakageByLocation): SeasonalAirflowCfm;
+}
+
 /** The 62.2 check for one leakage level. */
 export interface VentilationNeed {
   requiredCfm: number;
@@ -53,6 +79,8 @@ export interface HomeModel {
   /** The leakage the plan may not go below, CFM50. */
   readonly floorCfm50: number;
   readonly energyContext: EnergyContext;
+  /** Degree days (or hours) the year's loads are summed over. */
+  readonly climateBasis: ClimateBasis;
   /** Fan flow the house already runs continuously, cfm. */
   readonly existingFanCfm: number;
   /** Natural infiltration of a leakage state, by season. */
@@ -156,15 +184,19 @@ export function buildHomeModel(
   home: HomeFile,
   testIn: LeakageFit,
   leakShares: LeakShares,
+  hourly?: HourlyClimate,
 ): HomeModel {
   const shares = leakShares;
   const testInByLocation = Object.fromEntries(
     LEAK_LOCATIONS.map((location) => [location, testIn.cfm50 * shares[location]]),
   ) as Record<LeakLocation, number>;
   const exponentN = testIn.exponentN;
-  const airflowOf = seasonalAirflowMethod(home, exponentN);
+  const airflowOf = hourly ? hourly.airflowOf : seasonalAirflowMethod(home, exponentN);
+  const climateBasis: ClimateBasis = hourly
+    ? hourly.basis
+    : { kind: 'degreeDays', climateName: home.climate.name };
   const energyContext: EnergyContext = {
-    climate: home.climate,
+    seasons: hourly ? hourly.seasons : seasonTotalsOfClimate(home.climate),
     heating: home.heating,
     cooling: home.cooling ?? null,
     electricityKgCo2PerKwh: home.emissions?.electricityKgCo2PerKwh ?? 0,
@@ -212,6 +244,11 @@ export function buildHomeModel(
       combined: {
         heatingCfm: withFan(infiltration.heatingCfm, fanCfm),
         coolingCfm: hasCooling ? withFan(infiltration.coolingCfm, fanCfm) : 0,
+        ...(infiltration.coolingLatentCfm === undefined
+          ? {}
+          : {
+              coolingLatentCfm: hasCooling ? withFan(infiltration.coolingLatentCfm, fanCfm) : 0,
+            }),
       },
       fanWattsPerCfm,
       addedFanKwh:
@@ -227,6 +264,7 @@ export function buildHomeModel(
     testInCfm50: totalCfm50(testInByLocation),
     floorCfm50: Math.min(home.leakageFloorCfm50 ?? 0, testIn.cfm50),
     energyContext,
+    climateBasis,
     existingFanCfm,
     airflow: airflowOf,
     energy: (airflow, ventilationFanKwh = 0) =>

@@ -82,6 +82,21 @@ export interface EvaluationReport {
     heatingSeasonCfm: number;
     coolingSeasonCfm: number;
   };
+  /**
+   * What the year's loads are summed over: the climate's degree days at 65 °F, or the hours of
+   * its weather year at the house's balance points.
+   */
+  climateSource: {
+    kind: 'degreeDays' | 'hourly';
+    /** The climate's name, or the weather year's. */
+    name: string;
+    hours: number | null;
+    heatingBalancePointF: number;
+    coolingBalancePointF: number;
+    heatingDegreeDaysF: number;
+    coolingDegreeDaysF: number;
+    latentGrainHours: number;
+  };
   ranking: string;
   measures: MeasureReport[];
   package: {
@@ -225,6 +240,7 @@ export function buildReport(options: {
       heatingSeasonCfm: airflow.heatingCfm,
       coolingSeasonCfm: airflow.coolingCfm,
     },
+    climateSource: climateSourceOf(evaluation),
     ranking: plan.ranking,
     measures: plan.entries.map((entry) => measureReport(entry, heatingFuelUnit)),
     package: {
@@ -281,5 +297,37 @@ export function buildReport(options: {
     },
     cautions: evaluation.cautions,
     notes: evaluation.notes,
+  };
+}
+
+/** Degree days' base of a climate, °F. */
+const DEGREE_DAY_BASE_F = 65;
+
+function climateSourceOf(evaluation: Evaluation): EvaluationReport['climateSource'] {
+  const { model } = evaluation;
+  const basis = model.climateBasis;
+  const { seasons } = model.energyContext;
+  const totals = {
+    heatingDegreeDaysF: seasons.heatingDegreeDaysF,
+    coolingDegreeDaysF: seasons.coolingDegreeDaysF,
+    latentGrainHours: seasons.latentGrainHours,
+  };
+  if (basis.kind === 'hourly') {
+    return {
+      kind: 'hourly',
+      name: basis.weatherName,
+      hours: basis.hours,
+      heatingBalancePointF: basis.heatingBalancePointF,
+      coolingBalancePointF: basis.coolingBalancePointF,
+      ...totals,
+    };
+  }
+  return {
+    kind: 'degreeDays',
+    name: basis.climateName,
+    hours: null,
+    heatingBalancePointF: DEGREE_DAY_BASE_F,
+    coolingBalancePointF: DEGREE_DAY_BASE_F,
+    ...totals,
   };
 }

@@ -158,7 +158,8 @@ function methodInputProblems(home: HomeFile): PathProblem[] {
         'is required for infiltrationMethod "nFactor" unless nFactorOverride is given: expected 1 to 4',
     });
   }
-  if (method === 'lblBasic' || method === 'aim2') {
+  // Hour by hour, the hours stand in for the season means.
+  if ((method === 'lblBasic' || method === 'aim2') && home.hourlyWeather === undefined) {
     if (climate.heatingSeason === undefined) {
       problems.push({
         path: ['climate', 'heatingSeason'],

@@ -101,6 +101,17 @@ const seasonSchema = z.strictObject({
   latentGrainHours: z.number().min(0).max(10_000_000).optional(),
 });
 
+/**
+ * A home planned hour by hour on the weather year of its climate (stored with the climate
+ * when it was made from a weather file). Absent: the climate's degree days and season means.
+ */
+export const hourlyWeatherSchema = z.strictObject({
+  /** Outdoor temperature below which the house needs heat, °F (65 by default). */
+  heatingBalancePointF: z.number().min(30).max(80).optional(),
+  /** Outdoor temperature above which the house needs cooling, °F (65 by default). */
+  coolingBalancePointF: z.number().min(40).max(90).optional(),
+});
+
 export const climateSchema = z.strictObject({
   name: z.string().min(1).max(200),
   hdd65F: z.number().min(0).max(20_000),
@@ -325,6 +336,7 @@ export const homeFileSchema = z
     notes: z.string().max(10_000).optional(),
     house: houseSchema,
     climate: climateSchema,
+    hourlyWeather: hourlyWeatherSchema.optional(),
     heating: heatingSchema,
     cooling: coolingSchema.nullable().optional(),
     prices: pricesSchema,
@@ -373,6 +385,7 @@ export type HomeFile = z.output<typeof homeFileSchema>;
 export const homeDataSchema = z.strictObject({
   house: houseSchema.optional(),
   climate: climateSchema.optional(),
+  hourlyWeather: hourlyWeatherSchema.optional(),
   heating: heatingSchema.optional(),
   cooling: coolingSchema.nullable().optional(),
   prices: pricesSchema.optional(),

@@ -19,7 +19,7 @@ import type { HomeModel } from '../home-model.ts';
 import type { PreparedMeasure } from '../measures.ts';
 import { effectiveAnnualInfiltrationCfm } from '../infiltration/ashrae-622.ts';
 import { roundToCents, Decimal } from '../money.ts';
-import { LEAK_LOCATIONS, type Range } from '../schema.ts';
+import { LEAK_LOCATIONS, type LeakLocation, type Range } from '../schema.ts';
 import { aim2Flows } from './kernel-aim2.ts';
 import { buildPriceBook } from './prices.ts';
 import { DEFAULT_FAN_COST_USD } from './ventilation-fan.ts';
@@ -131,13 +131,30 @@ export function hypotOfTwo(a: number, b: number): number {
  */
 function proportionalInfiltration(
   model: HomeModel,
-): { heatingPerCfm50: number; coolingPerCfm50: number } | null {
+): { heatingPerCfm50: number; coolingPerCfm50: number; latentPerCfm50: number } | null {
   if (model.home.infiltrationMethod === 'aim2') return null;
   const testIn = model.testInCfm50;
   const flows = model.airflow(model.testIn);
+  const perCfm50 = (cfm: number) => (testIn > 0 ? cfm / testIn : 0);
   return {
-    heatingPerCfm50: testIn > 0 ? flows.heatingCfm / testIn : 0,
-    coolingPerCfm50: testIn > 0 ? flows.coolingCfm / testIn : 0,
+    heatingPerCfm50: perCfm50(flows.heatingCfm),
+    coolingPerCfm50: perCfm50(flows.coolingCfm),
+    latentPerCfm50: perCfm50(flows.coolingLatentCfm ?? flows.coolingCfm),
+  };
+}
+
+/**
+ * AIM-2 worked hour by hour: the model's own airflow for each state (exact, and slower: a
+ * year of hours a state), written into `out` [heating, cooling, latent].
+ */
+function hourlyAim2Flows(model: HomeModel) {
+  const state: Record<LeakLocation, number> = { ceiling: 0, wall: 0, floor: 0, flue: 0 };
+  return (leakage: Float64Array, out: Float64Array): void => {
+    LEAK_LOCATIONS.forEach((location, index) => (state[location] = leakage[index] ?? 0));
+    const flows = model.airflow(state);
+    out[0] = flows.heatingCfm;
+    out[1] = flows.coolingCfm;
+    out[2] = flows.coolingLatentCfm ?? flows.coolingCfm;
   };
 }
 
@@ -209,8 +226,15 @@ export function compileMeasuresKernel(options: {
   const drawElectricityFactors = new Float64Array(lives.length);
 
   // Energy per cfm of seasonal air flow: annualEnergyOfAirflow is proportional in each flow.
+  // Hour by hour the latent load has its own mean flow, so cooling is valued in two parts.
+  const hourly = model.climateBasis.kind === 'hourly';
   const heatingUnitsPerCfm = model.energy({ heatingCfm: 1, coolingCfm: 0 }).heatingFuelUnits;
-  const coolingKwhPerCfm = model.energy({ heatingCfm: 0, coolingCfm: 1 }).coolingKwh;
+  const coolingKwhPerCfm = hourly
+    ? model.energy({ heatingCfm: 0, coolingCfm: 1, coolingLatentCfm: 0 }).coolingKwh
+    : model.energy({ heatingCfm: 0, coolingCfm: 1 }).coolingKwh;
+  const latentKwhPerCfm = hourly
+    ? model.energy({ heatingCfm: 0, coolingCfm: 0, coolingLatentCfm: 1 }).coolingKwh
+    : 0;
   const hasCooling = Boolean(home.cooling);
 
   // The 62.2 check, as model.ventilation computes it.
@@ -234,9 +258,12 @@ export function compileMeasuresKernel(options: {
   const proportional = proportionalInfiltration(model);
   const heatingPerCfm50 = proportional?.heatingPerCfm50 ?? 0;
   const coolingPerCfm50 = proportional?.coolingPerCfm50 ?? 0;
-  const aim2 = proportional ? null : aim2Flows(model);
+  const latentPerCfm50 = proportional?.latentPerCfm50 ?? 0;
+  const aim2 = proportional || hourly ? null : aim2Flows(model);
+  const aim2Hourly = !proportional && hourly ? hourlyAim2Flows(model) : null;
   const leakage = new Float64Array(LEAK_LOCATIONS.length);
-  const flows = new Float64Array(2);
+  // Heating, cooling and (hour by hour) latent natural infiltration of the state, cfm.
+  const flows = new Float64Array(3);
   // The state of the leakage last valued: heating units, cooling kWh, added-fan kWh.
   const state = new Float64Array(3);
 
@@ -254,11 +281,14 @@ export function compileMeasuresKernel(options: {
 
   /** The natural infiltration of the leakage in `leakage` into `flows`. */
   const infiltrationOf = (total: number): void => {
-    if (aim2 === null) {
+    if (aim2 !== null) {
+      aim2(leakage, total, flows);
+    } else if (aim2Hourly !== null) {
+      aim2Hourly(leakage, flows);
+    } else {
       flows[0] = heatingPerCfm50 * total;
       flows[1] = coolingPerCfm50 * total;
-    } else {
-      aim2(leakage, total, flows);
+      flows[2] = latentPerCfm50 * total;
     }
   };
   /** Values the leakage in `leakage` into `state`, as model.energyOf does. */
@@ -278,7 +308,11 @@ export function compileMeasuresKernel(options: {
     const heatingCfm = withFan(heatingInfiltration, fanCfm);
     const coolingCfm = hasCooling ? withFan(coolingInfiltration, fanCfm) : 0;
     state[0] = divided(heatingUnitsPerCfm * heatingCfm, conditions.heatingEfficiencyFactor);
-    state[1] = divided(coolingKwhPerCfm * coolingCfm, conditions.coolingEfficiencyFactor);
+    const coolingKwh = hourly
+      ? coolingKwhPerCfm * coolingCfm +
+        (hasCooling ? latentKwhPerCfm * withFan(divided(flows[2] ?? 0, divisor), fanCfm) : 0)
+      : coolingKwhPerCfm * coolingCfm;
+    state[1] = divided(coolingKwh, conditions.coolingEfficiencyFactor);
     state[2] =
       fanCfm === existingFanCfm
         ? 0
@@ -339,6 +373,7 @@ export function compileMeasuresKernel(options: {
       ) {
         flows[0] = testInFlows[0] ?? 0;
         flows[1] = testInFlows[1] ?? 0;
+        flows[2] = testInFlows[2] ?? 0;
         valueFlows(total, conditions);
         heatingUnits = state[0] ?? 0;
         coolingKwh = state[1] ?? 0;

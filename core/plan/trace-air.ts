@@ -7,6 +7,7 @@
 import { pressureRatioAtElevation } from '../air.ts';
 import { AIR_HEAT_CAPACITY_BTU_PER_FT3_F } from '../constants.ts';
 import { seasonalSensibleLoadBtu } from '../energy.ts';
+import type { ClimateBasis } from '../home-model.ts';
 import type { InfiltrationMethod } from '../schema.ts';
 import { airflow, figure, input, type TraceContext, type TraceLine } from './trace-parts.ts';
 
@@ -116,8 +117,10 @@ export function pressureLine(context: TraceContext): TraceLine {
 /** The sensible load saved in one season, the inputs and the formula it is worked with. */
 export function sensibleLine(context: TraceContext, season: Season): TraceLine {
   const { climate } = context.evaluation.home;
+  const { seasons } = context.evaluation.model.energyContext;
+  const basis = context.evaluation.model.climateBasis;
   const key = season === 'heating' ? 'heatingCfm' : 'coolingCfm';
-  const degreeDays = season === 'heating' ? climate.hdd65F : climate.cdd65F;
+  const degreeDays = season === 'heating' ? seasons.heatingDegreeDaysF : seasons.coolingDegreeDaysF;
   const before = context.flows.before.combined[key];
   const after = context.flows.after.combined[key];
   const loadOf = (airflowCfm: number) =>
@@ -143,14 +146,7 @@ export function sensibleLine(context: TraceContext, season: Season): TraceLine {
       }),
       airflow(`Outdoor air before Q_before`, before, `line: ${season}-season air before`),
       airflow(`Outdoor air after Q_after`, after, `line: ${season}-season air after`),
-      input(
-        season === 'heating'
-          ? 'Heating degree days HDD (base 65 °F)'
-          : 'Cooling degree days CDD (base 65 °F)',
-        degreeDays,
-        '°F·day',
-        { quantity: 'degreeDaysF', source: `climate “${climate.name}”` },
-      ),
+      degreeDaysInput(season, degreeDays, basis, climate.name),
     ],
     result: figure(
       season === 'heating'
@@ -159,4 +155,33 @@ export function sensibleLine(context: TraceContext, season: Season): TraceLine {
       'Btu',
     ),
   };
+}
+
+/** The degree days of a season's load, and where they come from. */
+function degreeDaysInput(
+  season: Season,
+  degreeDaysF: number,
+  basis: ClimateBasis,
+  climateName: string,
+) {
+  const symbol = season === 'heating' ? 'HDD' : 'CDD';
+  const kind = season === 'heating' ? 'Heating' : 'Cooling';
+  if (basis.kind === 'degreeDays') {
+    return input(`${kind} degree days ${symbol} (base 65 °F)`, degreeDaysF, '°F·day', {
+      quantity: 'degreeDaysF',
+      source: `climate “${climateName}”`,
+    });
+  }
+  const baseF = season === 'heating' ? basis.heatingBalancePointF : basis.coolingBalancePointF;
+  return input(
+    `${kind} degree days ${symbol} from the hours (base: the balance point, ${baseF} °F)`,
+    degreeDaysF,
+    '°F·day',
+    {
+      quantity: 'degreeDaysF',
+      source:
+        `the ${basis.hours.toLocaleString('en-US')} hours of “${basis.weatherName}”; Q is each ` +
+        `hour's infiltration weighted by that hour's degrees`,
+    },
+  );
 }

@@ -9,6 +9,10 @@ import { seasonalLatentLoadBtu } from '../energy.ts';
 import { airflowLine, sensibleLine } from './trace-air.ts';
 import { airflow, figure, input, type TraceContext, type TraceLine } from './trace-parts.ts';
 
+/** Hour by hour, the latent load's air is its own mean: weighted by each hour's moisture. */
+const LATENT_MEAN_SOURCE =
+  'the cooling hours’ infiltration weighted by each hour’s moisture excess, with the fan';
+
 /** The cooling lines, when the home cools: air, sensible and latent load, electricity. */
 export function coolingLines(context: TraceContext): TraceLine[] {
   const { home } = context.evaluation;
@@ -16,9 +20,12 @@ export function coolingLines(context: TraceContext): TraceLine[] {
   if (!cooling) return [];
   const { climate } = home;
   const saved = context.entry.step.saved;
-  const before = context.flows.before.combined.coolingCfm;
-  const after = context.flows.after.combined.coolingCfm;
-  const grainHours = climate.coolingSeason?.latentGrainHours ?? 0;
+  const { combined: beforeFlows } = context.flows.before;
+  const { combined: afterFlows } = context.flows.after;
+  const before = beforeFlows.coolingLatentCfm ?? beforeFlows.coolingCfm;
+  const after = afterFlows.coolingLatentCfm ?? afterFlows.coolingCfm;
+  const basis = context.evaluation.model.climateBasis;
+  const grainHours = context.evaluation.model.energyContext.seasons.latentGrainHours;
   const latentOf = (airflowCfm: number) =>
     seasonalLatentLoadBtu({
       airflowCfm,
@@ -42,13 +49,22 @@ export function coolingLines(context: TraceContext): TraceLine[] {
       input('Site pressure ratio p/p₀', pressureRatioAtElevation(climate.elevationFt), '', {
         source: 'line: site pressure ratio',
       }),
-      airflow('Outdoor air before Q_before', before, 'line: cooling-season air before'),
-      airflow('Outdoor air after Q_after', after, 'line: cooling-season air after'),
+      ...(basis.kind === 'hourly'
+        ? [
+            airflow('Outdoor air before Q_before', before, LATENT_MEAN_SOURCE),
+            airflow('Outdoor air after Q_after', after, LATENT_MEAN_SOURCE),
+          ]
+        : [
+            airflow('Outdoor air before Q_before', before, 'line: cooling-season air before'),
+            airflow('Outdoor air after Q_after', after, 'line: cooling-season air after'),
+          ]),
       input('Moisture excess over the cooling hours G', grainHours, 'grain/lb·h', {
         source:
-          climate.coolingSeason?.latentGrainHours === undefined
-            ? 'none given for the climate, so 0'
-            : `climate “${climate.name}” (coolingSeason.latentGrainHours)`,
+          basis.kind === 'hourly'
+            ? `the cooling hours of “${basis.weatherName}”, from their dew points`
+            : climate.coolingSeason?.latentGrainHours === undefined
+              ? 'none given for the climate, so 0'
+              : `climate “${climate.name}” (coolingSeason.latentGrainHours)`,
       }),
     ],
     result: figure(latentOf(before) - latentOf(after), 'Btu'),

@@ -105,7 +105,12 @@ describe('equipment', () => {
 
 describe('a year of infiltration', () => {
   const context: EnergyContext = {
-    climate: { hdd65F: 6000, cdd65F: 1000, elevationFt: 0 },
+    seasons: {
+      heatingDegreeDaysF: 6000,
+      coolingDegreeDaysF: 1000,
+      latentGrainHours: 0,
+      elevationFt: 0,
+    },
     heating: { fuel: 'naturalGas', equipment: 'furnace', efficiency: 0.9 },
     cooling: { seer: 14 },
     electricityKgCo2PerKwh: 0.4,
