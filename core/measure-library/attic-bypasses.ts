@@ -15,6 +15,7 @@ import {
   practice,
   range,
 } from './building-blocks.ts';
+import { uses } from './materials.ts';
 import type { MeasureType } from './types.ts';
 
 export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
@@ -29,6 +30,13 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.6, 0.8, 0.95),
     defaultCost: { materialsUsdPerUnit: 0.35, laborHoursPerUnit: 0.04 },
     cautionCodes: ['spray-foam-handling', 'knob-and-tube-wiring', 'vermiculite'],
+    materials: [
+      uses(
+        'sealant-tube',
+        1.5,
+        'A bead along each joint of plate and ceiling drywall: two joints on an interior wall, one on an exterior wall; 1.5 ft of bead per ft of plate on average',
+      ),
+    ],
     sources: {
       leakageArea: nistNote('ceiling-wall joint (per metre)', '0.5 cm²/m', '1.5 cm²/m'),
       effectiveness: EFFECT_SEALANT,
@@ -49,6 +57,10 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.7, 0.85, 0.95),
     defaultCost: { materialsUsdPerUnit: 25, laborHoursPerUnit: 1.5 },
     cautionCodes: ['spray-foam-handling', 'knob-and-tube-wiring', 'vermiculite'],
+    materials: [
+      uses('foam-board-sheet', 8, 'One cap over a chase opening of about 2 × 4 ft = 8 ft²'),
+      uses('foam-can-24oz', 12, 'A bead round the cap: 2 × (2 + 4) = 12 ft'),
+    ],
     sources: {
       leakageArea: practice(
         'Auditors’ estimate of an open duct chase or balloon-frame bay seen from the attic; sizes vary widely',
@@ -71,6 +83,19 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.5, 0.7, 0.9),
     defaultCost: { materialsUsdPerUnit: 30, laborHoursPerUnit: 1 },
     cautionCodes: ['lead-safe-work', 'vermiculite'],
+    materials: [
+      uses(
+        'weatherstrip',
+        9,
+        'Round a 22 × 30 in hatch frame: 2 × (22 + 30) / 12 = 8.7 ft, taken as 9',
+      ),
+      uses(
+        'foam-board-sheet',
+        5,
+        'One layer on the back of the 22 × 30 in panel: 22 × 30 / 144 = 4.6 ft², taken as 5',
+      ),
+      uses('sealant-tube', 9, 'The frame’s trim to the ceiling, the same 9 ft'),
+    ],
     sources: {
       leakageArea: nistNote('attic door', '18 cm² per item', '30 cm² per item'),
       effectiveness: EFFECT_MOVING,
@@ -91,6 +116,14 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.5, 0.75, 0.9),
     defaultCost: { materialsUsdPerUnit: 150, laborHoursPerUnit: 2 },
     cautionCodes: ['lead-safe-work', 'vermiculite'],
+    materials: [
+      uses('attic-stair-cover', 1, 'One cover per stair'),
+      uses(
+        'sealant-tube',
+        14,
+        'The stair frame to the ceiling round a 25 × 54 in opening: 2 × (25 + 54) / 12 = 13.2 ft, taken as 14',
+      ),
+    ],
     sources: {
       leakageArea: memory(
         'Folding stairs leak more than a flat hatch: gaps at the frame, hinges and rough opening; sizes recalled from field tests',
@@ -113,6 +146,14 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.6, 0.8, 0.95),
     defaultCost: { materialsUsdPerUnit: 25, laborHoursPerUnit: 0.5 },
     cautionCodes: ['recessed-light-rating', 'knob-and-tube-wiring', 'vermiculite'],
+    materials: [
+      uses('recessed-light-cover', 1, 'One cover per fixture'),
+      uses(
+        'sealant-tube',
+        4.5,
+        'The cover’s base to the ceiling, about 13 × 13 in: 4 × 13 / 12 = 4.3 ft, taken as 4.5',
+      ),
+    ],
     sources: {
       leakageArea: memory(
         'ASHRAE Handbook of Fundamentals component leakage table, recessed light about 4 cm² (0.6 in²) each as best estimate; the high value reflects field reports of 2–3 in² for old non-IC cans',
@@ -135,6 +176,14 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.7, 0.85, 0.95),
     defaultCost: { materialsUsdPerUnit: 20, laborHoursPerUnit: 1 },
     cautionCodes: ['spray-foam-handling', 'knob-and-tube-wiring', 'vermiculite'],
+    materials: [
+      uses('foam-board-sheet', 6, 'One cap over a chase of about 2 × 3 ft = 6 ft²'),
+      uses(
+        'foam-can-24oz',
+        13,
+        'Round the cap, 2 × (2 + 3) = 10 ft, and about 3 ft round the pipes',
+      ),
+    ],
     sources: {
       leakageArea: practice(
         'Auditors’ estimate of the open wall or vent-stack chase above a bathroom or kitchen',
@@ -157,6 +206,18 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.7, 0.85, 0.95),
     defaultCost: { materialsUsdPerUnit: 40, laborHoursPerUnit: 2 },
     cautionCodes: ['flue-clearance', 'knob-and-tube-wiring', 'vermiculite'],
+    materials: [
+      uses(
+        'sheet-metal',
+        6,
+        'Flashing over a gap round the flue of about 2 × 3 ft = 6 ft²; no foam or board near the flue',
+      ),
+      uses(
+        'high-temperature-sealant-tube',
+        13,
+        'The metal’s edge, 2 × (2 + 3) = 10 ft, and round a 10-inch flue, π × 10 / 12 = 2.6 ft, taken as 3',
+      ),
+    ],
     sources: {
       leakageArea: practice(
         'Auditors’ estimate of the gap around a chimney or flue where it passes the attic floor',
@@ -179,6 +240,18 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.6, 0.8, 0.9),
     defaultCost: { materialsUsdPerUnit: 2.5, laborHoursPerUnit: 0.15 },
     cautionCodes: ['spray-foam-handling', 'knob-and-tube-wiring', 'vermiculite', 'lead-safe-work'],
+    materials: [
+      uses(
+        'foam-board-sheet',
+        0.75,
+        'A block in each joist bay under the wall: 14.5 × 9.25 in = 0.93 ft² every 16 in, 0.93 × 12 / 16 = 0.70 ft² per ft, taken as 0.75',
+      ),
+      uses(
+        'foam-can-24oz',
+        3,
+        'Round each block: 2 × (14.5 + 9.25) / 12 = 4.0 ft every 16 in, 4.0 × 12 / 16 = 3.0 ft per ft',
+      ),
+    ],
     sources: {
       leakageArea: memory(
         'Open joist bays under kneewalls; per-foot sizes recalled from zonal pressure tests of storey-and-a-half houses',
@@ -201,6 +274,10 @@ export const ATTIC_BYPASS_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.7, 0.85, 0.95),
     defaultCost: { materialsUsdPerUnit: 35, laborHoursPerUnit: 2 },
     cautionCodes: ['spray-foam-handling', 'knob-and-tube-wiring', 'vermiculite'],
+    materials: [
+      uses('foam-board-sheet', 20, 'One cover over a soffit of about 10 × 2 ft = 20 ft²'),
+      uses('foam-can-24oz', 24, 'Round the cover: 2 × (10 + 2) = 24 ft'),
+    ],
     sources: {
       leakageArea: practice(
         'Auditors’ estimate for a kitchen or bath soffit open to the attic along its length',

@@ -10,6 +10,7 @@ import {
   practice,
   range,
 } from './building-blocks.ts';
+import { uses } from './materials.ts';
 import type { MeasureType } from './types.ts';
 
 export const OTHER_MEASURES: readonly MeasureType[] = [
@@ -28,6 +29,15 @@ export const OTHER_MEASURES: readonly MeasureType[] = [
       'spray-foam-handling',
       'lead-safe-work',
       'knob-and-tube-wiring',
+    ],
+    materials: [
+      uses(
+        'fire-rated-sealant-tube',
+        60,
+        'About 40 ft of rim and 20 ft round penetrations between garage and house, 60 ft in all',
+      ),
+      uses('weatherstrip', 17, 'The house door’s two 7-ft jambs and 3-ft head, 17 ft'),
+      uses('door-sweep', 1, 'One sweep on the house door'),
     ],
     sources: {
       leakageArea: practice(
@@ -51,6 +61,14 @@ export const OTHER_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.5, 0.8, 0.95),
     defaultCost: { materialsUsdPerUnit: 180, laborHoursPerUnit: 1.5 },
     cautionCodes: ['fireplace'],
+    materials: [
+      uses('chimney-seal', 1, 'One per flue'),
+      uses(
+        'high-temperature-sealant-tube',
+        12,
+        'The surround to the wall round an opening of about 4 × 2 ft: 2 × (4 + 2) = 12 ft',
+      ),
+    ],
     sources: {
       leakageArea: {
         mark: 'published',
@@ -77,6 +95,7 @@ export const OTHER_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.5, 0.7, 0.9),
     defaultCost: { materialsUsdPerUnit: 0.25, laborHoursPerUnit: 0.03 },
     cautionCodes: ['lead-safe-work'],
+    materials: [uses('sealant-tube', 1, 'One bead along the floor-wall joint per ft')],
     sources: {
       leakageArea: nistNote('floor-wall joint (per metre)', '0.8 cm²/m', '4 cm²/m'),
       effectiveness: EFFECT_SEALANT,

@@ -12,6 +12,7 @@ import {
   practice,
   range,
 } from './building-blocks.ts';
+import { uses } from './materials.ts';
 import type { MeasureType } from './types.ts';
 
 export const PENETRATION_MEASURES: readonly MeasureType[] = [
@@ -26,6 +27,13 @@ export const PENETRATION_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.7, 0.85, 0.95),
     defaultCost: { materialsUsdPerUnit: 4, laborHoursPerUnit: 0.25 },
     cautionCodes: ['spray-foam-handling', 'lead-safe-work'],
+    materials: [
+      uses(
+        'foam-can-12oz',
+        1,
+        'Round a pipe hole of about 3.5 in: π × 3.5 / 12 = 0.92 ft, taken as 1',
+      ),
+    ],
     sources: {
       leakageArea: practice(
         'Oversized holes around supply and drain pipes through floors and walls',
@@ -47,6 +55,13 @@ export const PENETRATION_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.7, 0.85, 0.95),
     defaultCost: { materialsUsdPerUnit: 2, laborHoursPerUnit: 0.15 },
     cautionCodes: ['knob-and-tube-wiring', 'spray-foam-handling', 'lead-safe-work'],
+    materials: [
+      uses(
+        'sealant-tube',
+        0.5,
+        'A drilled cable hole of about 3/4 in is π × 0.75 / 12 = 0.2 ft round; 0.5 ft of bead fills and covers it',
+      ),
+    ],
     sources: {
       leakageArea: memory('Drilled holes for cables through plates and walls; recalled sizes'),
       effectiveness: EFFECT_SEALANT,
@@ -66,6 +81,14 @@ export const PENETRATION_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.3, 0.5, 0.7),
     defaultCost: { materialsUsdPerUnit: 0.5, laborHoursPerUnit: 0.05 },
     cautionCodes: ['knob-and-tube-wiring'],
+    materials: [
+      uses('outlet-gasket', 1, 'One gasket per cover plate'),
+      uses(
+        'sealant-tube',
+        1,
+        'Round a single-gang box of about 2 × 3 in where it meets the drywall: 2 × (2 + 3) / 12 = 0.83 ft, taken as 1',
+      ),
+    ],
     sources: {
       leakageArea: memory('ASHRAE component leakage table, outlets and switches without gaskets'),
       effectiveness: practice('Gaskets under cover plates stop the leak at the plate only'),
@@ -86,6 +109,13 @@ export const PENETRATION_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.6, 0.8, 0.95),
     defaultCost: { materialsUsdPerUnit: 5, laborHoursPerUnit: 0.3 },
     cautionCodes: ['lead-safe-work'],
+    materials: [
+      uses(
+        'duct-mastic-pail',
+        2.5,
+        'Round a 4 × 10 in boot where it meets the drywall or floor: 2 × (4 + 10) / 12 = 2.3 ft, taken as 2.5',
+      ),
+    ],
     sources: {
       leakageArea: nistNote('HVAC ceiling penetration', '1 cm² per item', '5 cm² per item'),
       effectiveness: EFFECT_SEALANT,
@@ -106,6 +136,14 @@ export const PENETRATION_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.4, 0.6, 0.8),
     defaultCost: { materialsUsdPerUnit: 15, laborHoursPerUnit: 0.75 },
     cautionCodes: ['exhaust-termination', 'knob-and-tube-wiring', 'vermiculite'],
+    materials: [
+      uses(
+        'sealant-tube',
+        3.5,
+        'The housing to the ceiling, about 10 × 10 in: 4 × 10 / 12 = 3.3 ft, taken as 3.5',
+      ),
+      uses('backdraft-damper', 1, 'One damper per fan, where none works'),
+    ],
     sources: {
       leakageArea: nistNote('bathroom exhaust vent', '10 cm² per item', '20 cm² per item'),
       effectiveness: EFFECT_MOVING,
@@ -126,6 +164,14 @@ export const PENETRATION_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.4, 0.6, 0.8),
     defaultCost: { materialsUsdPerUnit: 25, laborHoursPerUnit: 0.75 },
     cautionCodes: ['exhaust-termination'],
+    materials: [
+      uses('backdraft-damper', 1, 'One damper per hood'),
+      uses(
+        'sealant-tube',
+        2,
+        'Round a 7-inch duct where it passes the wall: π × 7 / 12 = 1.8 ft, taken as 2',
+      ),
+    ],
     sources: {
       leakageArea: nistNote('kitchen exhaust vent', '5 cm² per item', '40 cm² per item'),
       effectiveness: EFFECT_MOVING,
@@ -146,6 +192,15 @@ export const PENETRATION_MEASURES: readonly MeasureType[] = [
     sealingEffectiveness: range(0.4, 0.6, 0.8),
     defaultCost: { materialsUsdPerUnit: 30, laborHoursPerUnit: 1 },
     cautionCodes: ['dryer-vent'],
+    materials: [
+      uses('metal-dryer-duct', 8, 'A run of about 8 ft from dryer to wall'),
+      uses('dryer-vent-hood', 1, 'One hood outside'),
+      uses(
+        'sealant-tube',
+        1.5,
+        'Round the 4-inch duct at the wall: π × 4.25 / 12 = 1.1 ft, taken as 1.5',
+      ),
+    ],
     sources: {
       leakageArea: memory(
         'ASHRAE component leakage table, dryer vent with and without a working damper; recalled',

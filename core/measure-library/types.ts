@@ -4,6 +4,9 @@
  */
 import type { LeakLocation, Range } from '../schema.ts';
 import type { CautionCode } from '../safety/types.ts';
+import type { MaterialUse } from './materials.ts';
+
+export type { MaterialUse } from './materials.ts';
 
 export interface SourceNote {
   mark: 'published' | 'from memory' | 'common practice' | 'demo default' | 'user edit';
@@ -34,4 +37,10 @@ export interface MeasureType {
   };
   /** What the crew does, in one or two sentences. */
   description: string;
+  /**
+   * What the work uses per unit of the measure (per ft, ft², each or job), in each
+   * material's use unit; the work order multiplies by the quantity and sums across measures.
+   * Absent for a type that names none (a project's own type, say): no bill of materials.
+   */
+  materials?: readonly MaterialUse[];
 }
