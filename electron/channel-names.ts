@@ -49,6 +49,11 @@ export const CHANNEL_NAMES = [
   'portfolio.importCsv',
   'portfolio.homesCsv',
   'portfolio.resultsCsv',
+  'bills.list',
+  'bills.import',
+  'bills.importTemperatures',
+  'bills.analyse',
+  'bills.clear',
 ] as const;
 
 export type ChannelNameList = (typeof CHANNEL_NAMES)[number];

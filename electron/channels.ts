@@ -6,7 +6,7 @@
  * that does not parse is refused before anything is read or written.
  *
  * The definitions live by area in channels/ (homes, tests and measures, plans and library,
- * clients and stored sets and settings, files and portfolio), each built with `channel()`
+ * clients and stored sets and settings, files and portfolio, bills), each built with `channel()`
  * from channels/_define.ts; this file puts them together, calls them and words their errors.
  */
 import type { z } from 'zod';
@@ -15,6 +15,7 @@ import { problemsFromZod } from '../core/_lib/zod-problems.ts';
 import { DbError } from '../db/errors.ts';
 import type { ChannelNameList } from './channel-names.ts';
 import type { Channel, ChannelContext } from './channels/_define.ts';
+import { billChannels } from './channels/bills.ts';
 import { choiceChannels } from './channels/choices.ts';
 import { clientSetAndSettingChannels } from './channels/clients-sets-and-settings.ts';
 import { fileAndPortfolioChannels } from './channels/files-and-portfolio.ts';
@@ -32,6 +33,7 @@ export const channels = {
   ...choiceChannels,
   ...clientSetAndSettingChannels,
   ...fileAndPortfolioChannels,
+  ...billChannels,
 } as const;
 
 export type Channels = typeof channels;

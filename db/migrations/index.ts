@@ -7,6 +7,7 @@ import { migration0001 } from './0001-homes.ts';
 import { migration0002 } from './0002-library-and-plans.ts';
 import { migration0003 } from './0003-settings-and-job-status.ts';
 import { migration0004 } from './0004-plan-basis.ts';
+import { migration0005 } from './0005-weather-and-bills.ts';
 
 export interface Migration {
   /** The `PRAGMA user_version` the database has after this step. */
@@ -20,6 +21,7 @@ export const MIGRATIONS: readonly Migration[] = [
   migration0002,
   migration0003,
   migration0004,
+  migration0005,
 ];
 
 /** The schema version this build of Sealwork writes. */

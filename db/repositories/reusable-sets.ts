@@ -7,6 +7,7 @@ import { climateSchema, pricesSchema, type Climate, type HomeFile } from '../../
 import { classifySqliteError, DbError } from '../errors.ts';
 import type { ReadAccess, WriteAccess } from '../store.ts';
 import { found, readJson, validated } from './_rows.ts';
+import { removeWeatherYearIfUnlinked } from './weather-years.ts';
 
 type Prices = HomeFile['prices'];
 
@@ -102,8 +103,15 @@ function repository<T>(
           },
         );
       }
+      // A climate made from a weather file takes its stored year with it.
+      const year =
+        table === 'climates'
+          ? (write.statement('SELECT weather_year_id AS id FROM climates WHERE id = ?').get(id) as
+              { id: number | null } | undefined)
+          : undefined;
       const result = write.statement(`DELETE FROM ${table} WHERE id = ?`).run(id);
       found(result.changes > 0 ? true : undefined, `${what} ${id}`, idField);
+      if (year !== undefined && year.id !== null) removeWeatherYearIfUnlinked(write, year.id);
     },
   };
 }

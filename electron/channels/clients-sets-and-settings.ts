@@ -3,11 +3,16 @@
  * price sets homes link to, and the project's settings.
  */
 import { z } from 'zod';
-import { climateFromWeather, detectAndParseWeather } from '../../core/weather.ts';
+import {
+  climateFromWeather,
+  detectAndParseWeather,
+  detectWeatherFormat,
+} from '../../core/weather.ts';
 import type { Climate, HomeFile } from '../../core/schema.ts';
 import { createClient, listClients, type Client } from '../../db/repositories/clients.ts';
 import { climates, priceSets, type NamedSet } from '../../db/repositories/reusable-sets.ts';
 import { getSettings, settingsSchema, updateSettings } from '../../db/repositories/settings.ts';
+import { createWeatherYear, linkClimateWeatherYear } from '../../db/repositories/weather-years.ts';
 import { byId, channel, id, nothing, recordOf } from './_define.ts';
 
 const namedSet = z.strictObject({ name: z.string().max(200), data: z.unknown() });
@@ -55,7 +60,7 @@ export const clientSetAndSettingChannels = {
     handle: ({ store }) => store.read((read) => climates.list(read)),
   }),
   'climates.save': saveChannel(climates),
-  // A climate made from an hourly weather file (EPW or TMY3) and stored; the file is read only.
+  // A climate made from an hourly weather file (EPW or TMY3), stored with the file's hours.
   'climates.importWeather': channel({
     request: z.strictObject({
       text: z.string().max(8 * 1024 * 1024),
@@ -64,11 +69,18 @@ export const clientSetAndSettingChannels = {
     }),
     response: z.strictObject({ id, climate: recordOf<Climate>() }),
     handle: ({ store }, request) => {
-      const climate = climateFromWeather(
-        detectAndParseWeather(request.text, request.fileName),
-        request.name,
-      );
-      return { id: store.write((write) => climates.create(write, climate.name, climate)), climate };
+      const weather = detectAndParseWeather(request.text, request.fileName);
+      // The reader above chose the format by the same test, so it is known here.
+      const format = detectWeatherFormat(request.text) ?? 'epw';
+      const climate = climateFromWeather(weather, request.name);
+      // The climate and the hours it came from are stored together or not at all.
+      const climateId = store.write((write) => {
+        const made = climates.create(write, climate.name, climate);
+        const yearId = createWeatherYear(write, { name: climate.name, format, weather });
+        linkClimateWeatherYear(write, made, yearId);
+        return made;
+      });
+      return { id: climateId, climate };
     },
   }),
   'priceSets.list': channel({

@@ -1,6 +1,7 @@
 /** The channels of the homes themselves: list, read, create, change, delete and duplicate. */
 import { z } from 'zod';
 import { exportHomeFile, importHomeFile } from '../../db/home-file.ts';
+import { copyBills } from '../../db/repositories/bills.ts';
 import {
   createHome,
   deleteHome,
@@ -98,7 +99,10 @@ export const homeChannels = {
     handle: ({ store }, request) => ({
       id: store.write((write) => {
         const file = exportHomeFile(write, request.id);
-        return importHomeFile(write, { ...file, name: request.name, demo: false });
+        const copy = importHomeFile(write, { ...file, name: request.name, demo: false });
+        // Bills are not part of the home file; the copy keeps them all the same.
+        copyBills(write, request.id, copy);
+        return copy;
       }),
     }),
   }),

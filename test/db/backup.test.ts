@@ -17,20 +17,26 @@ import {
 } from 'node:fs';
 import Database from 'better-sqlite3';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import type { UtilityBill } from '../../core/billing.ts';
 import { evaluateHomeReport } from '../../core/evaluate.ts';
+import { detectAndParseWeather } from '../../core/weather.ts';
 import { ENGINE_VERSION } from '../../core/version.ts';
 import { backupTo, checkBackup, restoreFrom } from '../../db/backup.ts';
 import { DbError } from '../../db/errors.ts';
 import { exportHomeFile, importHomeFile } from '../../db/home-file.ts';
 import { LATEST_SCHEMA_VERSION } from '../../db/migrations/index.ts';
+import { replaceBills, replaceDailyTemperatures } from '../../db/repositories/bills.ts';
 import { createClient } from '../../db/repositories/clients.ts';
 import { createHome, deleteHome, listHomes } from '../../db/repositories/homes.ts';
 import { saveLibraryEdit } from '../../db/repositories/library.ts';
 import { savePlan } from '../../db/repositories/plans.ts';
 import { climates, priceSets } from '../../db/repositories/reusable-sets.ts';
 import { updateSettings } from '../../db/repositories/settings.ts';
+import { createWeatherYear, linkClimateWeatherYear } from '../../db/repositories/weather-years.ts';
 import { openStore, type Store } from '../../db/store.ts';
 import { setAt, validBaseHome } from '../_lib/base-home.ts';
+import { billingScenario } from '../_lib/billing-files.ts';
+import { tmy3Year } from '../_lib/weather-files.ts';
 import { handHomes } from './_lib/hand-homes.ts';
 import { allRows, rowCounts } from './_lib/sqlite-rows.ts';
 import { openTempProject, type TempProject } from './_lib/store-home.ts';
@@ -64,6 +70,13 @@ function fillProject(store: Store): void {
       inputs,
       result: evaluateHomeReport(inputs),
     });
+    // A stored weather year behind the shared climate, and bills with daily means for a home.
+    const weather = detectAndParseWeather(tmy3Year((day) => (day % 3) - 2.7));
+    const yearId = createWeatherYear(write, { name: 'Shared climate', format: 'tmy3', weather });
+    linkClimateWeatherYear(write, climateId, yearId);
+    const billing = billingScenario();
+    replaceBills(write, first.id, billing.bills as UtilityBill[]);
+    replaceDailyTemperatures(write, first.id, billing.temperatures);
     saveLibraryEdit(write, 'attic-hatch', { defaultLifeYears: 10 });
     updateSettings(write, { units: 'SI' });
   });

@@ -117,11 +117,36 @@ const SEED: readonly { table: string; since: number; sql: string }[] = [
     since: 3,
     sql: `INSERT INTO settings (key, value, updated_at) VALUES ('units', '"SI"', '${TIME}')`,
   },
+  {
+    // One hour: 3 calendar bytes (month, day, hour) and one little-endian float64 per quantity
+    // (IEEE 754: 1.5 is 0x3FF8000000000000, 0.0 is all zero bytes).
+    table: 'weather_years',
+    since: 5,
+    sql: `INSERT INTO weather_years (id, name, format, location, hour_count, calendar, dry_bulb_c, dew_point_c,
+                                     relative_humidity_pct, pressure_pa, wind_speed_ms, created_at) VALUES
+            (1, 'Hill town year', 'tmy3', '{"name":"Hill town","latitude":44,"longitude":-72,"timeZoneHours":-5,"elevationM":580}',
+             1, X'010101', X'000000000000F83F', X'0000000000000000', X'0000000000000000', X'0000000000000000',
+             X'0000000000000000', '${TIME}')`,
+  },
+  {
+    table: 'bills',
+    since: 5,
+    sql: `INSERT INTO bills (id, home_id, fuel, period_start, period_end, use, unit, created_at) VALUES
+            (1, 1, 'heatingOil', '2023-01-04', '2023-02-03', 112.5, 'gallon', '${TIME}')`,
+  },
+  {
+    table: 'daily_temperatures',
+    since: 5,
+    sql: `INSERT INTO daily_temperatures (id, home_id, date, mean_temp_f) VALUES (1, 1, '2023-01-04', 18.5)`,
+  },
 ];
 
 /** Columns a migration added to a table that already existed, with the value old rows get. */
 const ADDED_COLUMNS: readonly { table: string; version: number; column: string; value: unknown }[] =
-  [{ table: 'homes', version: 3, column: 'job_status', value: 'assessed' }];
+  [
+    { table: 'homes', version: 3, column: 'job_status', value: 'assessed' },
+    { table: 'climates', version: 5, column: 'weather_year_id', value: null },
+  ];
 
 /** The value a column's declared DEFAULT gives, evaluated by SQLite itself. */
 function declaredDefault(sqlite: Database.Database, table: string, column: string): unknown {

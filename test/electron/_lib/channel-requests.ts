@@ -4,6 +4,7 @@
  * that the handlers check themselves. The type makes a new channel without a request here a
  * compile error. The house is the invented base house of test/_lib/base-home.ts.
  */
+import { billingScenario, billsCsv, temperaturesCsv } from '../../_lib/billing-files.ts';
 import { tmy3Year } from '../../_lib/weather-files.ts';
 import type { ChannelName, ChannelRequest } from '../../../electron/channels.ts';
 import { measureTypeEditSchema } from '../../../core/measure-library.ts';
@@ -232,8 +233,23 @@ export function validRequests(ids: KnownIds): ValidRequests {
     'portfolio.importCsv': { csv: PORTFOLIO_CSV },
     'portfolio.homesCsv': {},
     'portfolio.resultsCsv': {},
+    'bills.list': { homeId: ids.homeId },
+    'bills.import': { homeId: ids.homeId, csv: billsCsv(BILLING.bills) },
+    'bills.importTemperatures': { homeId: ids.homeId, csv: temperaturesCsv(BILLING.temperatures) },
+    // The bills and temperatures the two requests above store (the corpus runs them first).
+    'bills.analyse': {
+      homeId: ids.homeId,
+      workDone: BILLING.workDone,
+      fuel: 'naturalGas',
+      kind: 'heating',
+      temperatures: 'stored',
+    },
+    'bills.clear': { homeId: ids.homeId, fuel: 'naturalGas', temperatures: true },
   };
 }
+
+/** The made-up bills and temperatures of the bills requests. */
+const BILLING = billingScenario();
 
 /** A one-home portfolio CSV in the columns the README documents (made up for these tests). */
 const PORTFOLIO_CSV = [
