@@ -68,3 +68,5 @@ export {
   INDOOR_COOLING_RELATIVE_HUMIDITY_PCT,
   weatherYearOf,
 } from './weather/hourly-airflow.ts';
+export type { WeatherYearData } from './weather/weather-year-data.ts';
+export { weatherYearData, weatherYearFromData } from './weather/weather-year-data.ts';

@@ -16,6 +16,7 @@ import { readJson } from './repositories/_rows.ts';
 import { listLeakageTests } from './repositories/leakage-tests.ts';
 import { effectiveLibrary } from './repositories/library.ts';
 import type { ReadAccess } from './store.ts';
+import { evaluateOptionsOf } from './evaluation-inputs.ts';
 
 interface StoredHomeRow {
   id: number;
@@ -209,7 +210,8 @@ function reportOrReason(
   library: MeasureLookup,
 ): EvaluationReport | string {
   try {
-    return evaluateHomeReport(exportHomeFile(read, homeId), { library });
+    const file = exportHomeFile(read, homeId);
+    return evaluateHomeReport(file, { ...evaluateOptionsOf(read, homeId, file), library });
   } catch (error) {
     if (!(error instanceof InputError)) throw error;
     return error.problems.map((problem) => `${problem.path}: ${problem.message}`).join('; ');

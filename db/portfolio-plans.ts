@@ -27,8 +27,8 @@ import {
 import { DbError } from './errors.ts';
 import { exportHomeFile } from './home-file.ts';
 import { listHomes, type HomeFilter } from './repositories/homes.ts';
-import { effectiveLibrary } from './repositories/library.ts';
 import type { ReadAccess } from './store.ts';
+import { evaluateOptionsOf, type WeatherYearCache } from './evaluation-inputs.ts';
 
 /** Which homes: those of a filter (as the Homes list), or exactly these ids. */
 export type PortfolioSelection =
@@ -124,14 +124,18 @@ export function evaluatePortfolio(
   onProgress?: (done: number, of: number) => void,
   calibrationSeed = CALIBRATION_SEED,
 ): PortfolioEvaluation {
-  const library = effectiveLibrary(read);
   const chosen = selectedHomes(read, selection);
+  const weatherYears: WeatherYearCache = new Map();
   const homes: PortfolioHome[] = [];
   const testOuts: TestOutInput[] = [];
   const skipped: SkippedHome[] = [];
   chosen.forEach((summary, index) => {
     try {
-      const evaluation = evaluateHome(exportHomeFile(read, summary.id), { library });
+      const file = exportHomeFile(read, summary.id);
+      const evaluation = evaluateHome(
+        file,
+        evaluateOptionsOf(read, summary.id, file, weatherYears),
+      );
       homes.push({
         homeId: summary.id,
         name: summary.name,

@@ -71,8 +71,8 @@ export interface Parsed {
   out: string | undefined;
   /** portfolio: a program-wide bias's ± fraction, as typed. */
   bias: string | undefined;
-  /** weather: the degree days' base, °F, as typed. */
-  weather: { baseF?: string };
+  /** weather: the degree days' base, °F, as typed; evaluate: a weather file to plan hour by hour on. */
+  weather: { baseF?: string; file?: string };
   /** bills: the temperature file, the day the work was done and the estimate. */
   bills: { temperatures?: string; workDone?: string; estimate?: string };
 }
@@ -180,11 +180,22 @@ export async function runEvaluate(parsed: Parsed, output: CliOutput): Promise<nu
   const [target = ''] = expectPositionals(parsed, ['FILE|HOME_ID']);
   const homeId = homeIdOf(target);
   const file = homeId === null ? await readJsonFile(target) : undefined;
+  const weatherFile = parsed.weather.file;
+  if (weatherFile !== undefined && homeId !== null) {
+    throw new UsageError(
+      '--weather is for a home file; a stored home is planned on its own climate (set it in House)',
+    );
+  }
+  const weatherText = weatherFile === undefined ? undefined : await readTextFile(weatherFile);
   // The channel parses the flags' values (as it does any request) and names a bad one.
   const choices = parsed.choices as Omit<ChannelRequest<'plan.evaluate'>, 'homeId'>;
   const report = await withProject(parsed, (context) =>
     homeId === null
-      ? ask(context, 'homeFile.evaluate', { file, ...choices })
+      ? ask(context, 'homeFile.evaluate', {
+          file,
+          ...(weatherText === undefined ? {} : { weatherText }),
+          ...choices,
+        })
       : ask(context, 'plan.evaluate', { homeId, ...choices }),
   );
   printReports(output, [report], parsed.json, true);

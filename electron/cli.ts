@@ -45,6 +45,8 @@ Usage:
                                             and the package's range of outcomes (Monte Carlo)
       [--budget USD|none] [--objective npv|savings|sir]
                                             and the best package within a budget
+      [--weather FILE]                      a home file planned hour by hour on an EPW or
+                                            TMY3 year (a stored home uses its climate's)
   sealwork list [--json]                    the stored homes
   sealwork import FILE [--json]             store a home file as a new home; prints its id
   sealwork import FILE.csv [--json] [--dry-run]
@@ -103,6 +105,7 @@ function parse(argv: readonly string[]): Parsed {
       estimate: { type: 'string' },
       bias: { type: 'string' },
       'base-f': { type: 'string' },
+      weather: { type: 'string' },
       out: { type: 'string' },
       draws: { type: 'string' },
       seed: { type: 'string' },
@@ -126,7 +129,10 @@ function parse(argv: readonly string[]): Parsed {
     choices: choicesOfFlags(values),
     all: values.all === true,
     bias: values.bias,
-    weather: values['base-f'] === undefined ? {} : { baseF: values['base-f'] },
+    weather: {
+      ...(values['base-f'] === undefined ? {} : { baseF: values['base-f'] }),
+      ...(values.weather === undefined ? {} : { file: values.weather }),
+    },
     bills: {
       ...(values.temperatures === undefined ? {} : { temperatures: values.temperatures }),
       ...(values['work-done'] === undefined ? {} : { workDone: values['work-done'] }),

@@ -97,6 +97,18 @@ const SEVERITY_WORDS: Record<string, string> = {
   notice: 'NOTICE ',
 };
 
+/** Where the year's loads come from, in one line. */
+export function climateSourceText(source: EvaluationWithChoices['climateSource']): string {
+  const days = `${formatNumber(source.heatingDegreeDaysF)} HDD, ${formatNumber(source.coolingDegreeDaysF)} CDD`;
+  if (source.kind === 'hourly') {
+    return (
+      `hour by hour: ${formatNumber(source.hours ?? 0)} hours of ${source.name} ` +
+      `(${days} at balance points ${source.heatingBalancePointF} / ${source.coolingBalancePointF} °F)`
+    );
+  }
+  return `degree days of ${source.name} (${days}, base 65 °F)`;
+}
+
 /** The whole plan of one home as text. */
 export function planText(report: EvaluationWithChoices): string {
   const { leakage, infiltration, package: pkg } = report;
@@ -113,6 +125,7 @@ export function planText(report: EvaluationWithChoices): string {
     `Natural     ${formatNumber(infiltration.cfmNatural, 0)} cfm   ${formatNumber(infiltration.achNatural, 2)} ACHnat ` +
       `(${infiltration.method}, heating season)`,
   );
+  lines.push(`Climate     ${climateSourceText(report.climateSource)}`);
   for (const warning of leakage.warnings) lines.push(wrapText(warning.message, '  ! '));
   lines.push('');
 

@@ -24,19 +24,18 @@ import {
   type UtilityBill,
 } from '../../core/billing.ts';
 import { InputError } from '../../core/errors.ts';
-import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
+import type { Evaluation } from '../../core/evaluate.ts';
 import type { Fuel } from '../../core/schema.ts';
 import { dailyMeanTemperatures, type DailyMean, type HourlyWeather } from '../../core/weather.ts';
 import { listBills, listDailyTemperatures } from '../../db/repositories/bills.ts';
 import { getHome } from '../../db/repositories/homes.ts';
-import { effectiveLibrary } from '../../db/repositories/library.ts';
 import {
   weatherYearOfClimate,
   weatherYearSummaryOfClimate,
   type WeatherYearSummary,
 } from '../../db/repositories/weather-years.ts';
-import { exportHomeFile } from '../../db/home-file.ts';
 import type { ReadAccess } from '../../db/store.ts';
+import { evaluateStoredHome } from '../../db/evaluation-inputs.ts';
 
 export type TemperatureSource = 'stored' | 'weatherYear';
 
@@ -122,7 +121,7 @@ function planEstimate(
 ): PlanEstimate {
   let evaluation: Evaluation;
   try {
-    evaluation = evaluateHome(exportHomeFile(read, homeId), { library: effectiveLibrary(read) });
+    evaluation = evaluateStoredHome(read, homeId).evaluation;
   } catch (error) {
     // A draft home (no test-in yet, say) has no plan: the bills can still be fitted.
     if (!(error instanceof InputError)) throw error;

@@ -9,12 +9,10 @@ import {
   type ChoicesRequest,
   type OptionReport,
 } from '../../core/choices.ts';
-import { evaluateHome } from '../../core/evaluate.ts';
 import { PACKAGE_OBJECTIVES } from '../../core/plan/best-package.ts';
 import { DISTRIBUTIONS } from '../../core/uncertainty/distributions.ts';
-import { exportHomeFile } from '../../db/home-file.ts';
-import { effectiveLibrary } from '../../db/repositories/library.ts';
 import { channel, id, recordOf } from './_define.ts';
+import { evaluateStoredHome } from '../../db/evaluation-inputs.ts';
 
 /** The most draws a channel request runs. */
 export const MAX_CHANNEL_DRAWS = 200_000;
@@ -72,10 +70,7 @@ export const choiceChannels = {
     response: z.array(recordOf<OptionReport>()),
     handle: ({ store }, { homeId, ...request }) =>
       store.read((read) =>
-        proposalOptionsReport(
-          evaluateHome(exportHomeFile(read, homeId), { library: effectiveLibrary(read) }),
-          request,
-        ),
+        proposalOptionsReport(evaluateStoredHome(read, homeId).evaluation, request),
       ),
   }),
 };

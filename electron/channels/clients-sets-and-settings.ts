@@ -12,7 +12,15 @@ import type { Climate, HomeFile } from '../../core/schema.ts';
 import { createClient, listClients, type Client } from '../../db/repositories/clients.ts';
 import { climates, priceSets, type NamedSet } from '../../db/repositories/reusable-sets.ts';
 import { getSettings, settingsSchema, updateSettings } from '../../db/repositories/settings.ts';
-import { createWeatherYear, linkClimateWeatherYear } from '../../db/repositories/weather-years.ts';
+import {
+  createWeatherYear,
+  linkClimateWeatherYear,
+  weatherYearSummaryOfClimate,
+  type WeatherYearSummary,
+} from '../../db/repositories/weather-years.ts';
+import { weatherYearOfHome } from '../../db/evaluation-inputs.ts';
+import { exportHomeFile } from '../../db/home-file.ts';
+import { weatherYearData, type WeatherYearData } from '../../core/weather.ts';
 import { byId, channel, id, nothing, recordOf } from './_define.ts';
 
 const namedSet = z.strictObject({ name: z.string().max(200), data: z.unknown() });
@@ -82,6 +90,23 @@ export const clientSetAndSettingChannels = {
       });
       return { id: climateId, climate };
     },
+  }),
+  // What hours a climate keeps (it was made from a weather file), or null.
+  'climates.hoursOf': channel({
+    request: z.strictObject({ climateId: id }),
+    response: recordOf<WeatherYearSummary>().nullable(),
+    handle: ({ store }, { climateId }) =>
+      store.read((read) => weatherYearSummaryOfClimate(read, climateId)),
+  }),
+  // The year a home is planned hour by hour on, for the page's own workers; null on degree days.
+  'climates.weatherYearOfHome': channel({
+    request: z.strictObject({ homeId: id }),
+    response: recordOf<WeatherYearData>().nullable(),
+    handle: ({ store }, { homeId }) =>
+      store.read((read) => {
+        const year = weatherYearOfHome(read, homeId, exportHomeFile(read, homeId));
+        return year ? weatherYearData(year) : null;
+      }),
   }),
   'priceSets.list': channel({
     request: nothing,

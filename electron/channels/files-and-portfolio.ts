@@ -5,6 +5,8 @@
 import { z } from 'zod';
 import { reportWithChoices, type EvaluationWithChoices } from '../../core/choices.ts';
 import { evaluateHome } from '../../core/evaluate.ts';
+import { InputError } from '../../core/errors.ts';
+import { detectAndParseWeather, weatherYearOf } from '../../core/weather.ts';
 import type { HomeFile } from '../../core/schema.ts';
 import { exportHomesCsv, resultsCsv, type HomesCsvExport } from '../../db/csv-export.ts';
 import {
@@ -32,6 +34,32 @@ import {
 import { JOB_STATUSES, LEAKINESS_BANDS } from '../../db/repositories/homes.ts';
 import { byId, channel, id, nothing, recordOf } from './_define.ts';
 import { choicesFields, choicesOf } from './choices.ts';
+
+/** A weather file's text may be a leap year of EPW rows with comments: a few MB at most. */
+const MAX_WEATHER_TEXT_CHARS = 8_000_000;
+
+/** The year of a weather file's text, its errors naming `weatherText` and the line. */
+function weatherYearOfText(text: string) {
+  try {
+    return weatherYearOf(detectAndParseWeather(text));
+  } catch (error) {
+    if (error instanceof InputError) {
+      throw new InputError(
+        error.problems.map((problem) => ({
+          path: problem.path === '' ? 'weatherText' : `weatherText.${problem.path}`,
+          message: problem.message,
+        })),
+      );
+    }
+    throw error;
+  }
+}
+
+/** A home file asked to be planned hour by hour: `hourlyWeather` added when it has none. */
+function withHourlyWeather(file: unknown): unknown {
+  if (typeof file !== 'object' || file === null || Array.isArray(file)) return file;
+  return 'hourlyWeather' in file ? file : { ...file, hourlyWeather: {} };
+}
 
 /** The largest portfolio CSV a request may carry, characters (10,000 homes fit easily). */
 const MAX_CSV_CHARS = 8 * 1024 * 1024;
@@ -74,11 +102,21 @@ export const fileAndPortfolioChannels = {
     response: recordOf<HomeFile>(),
     handle: ({ store }, request) => store.read((read) => exportHomeFile(read, request.id)),
   }),
+  // With `weatherText` (an EPW or TMY3 file) the home is planned hour by hour on that year.
   'homeFile.evaluate': channel({
-    request: z.strictObject({ file: z.unknown(), ...choicesFields }),
+    request: z.strictObject({
+      file: z.unknown(),
+      weatherText: z.string().min(1).max(MAX_WEATHER_TEXT_CHARS).optional(),
+      ...choicesFields,
+    }),
     response: recordOf<EvaluationWithChoices>(),
-    handle: (_context, request) =>
-      reportWithChoices(evaluateHome(request.file), choicesOf(request)),
+    handle: (_context, { file, weatherText, ...request }) =>
+      reportWithChoices(
+        weatherText === undefined
+          ? evaluateHome(file)
+          : evaluateHome(withHourlyWeather(file), { weather: weatherYearOfText(weatherText) }),
+        choicesOf(request),
+      ),
   }),
   'portfolio.summary': channel({
     request: nothing,

@@ -5,7 +5,11 @@ import {
   type ChoicesRequest,
   type EvaluationWithChoices,
 } from '../../core/choices.ts';
-import { evaluateHome, evaluateHomeReport } from '../../core/evaluate.ts';
+import { evaluateHomeReport } from '../../core/evaluate.ts';
+import {
+  compareWithDegreeDays,
+  type DegreeDayComparison,
+} from '../../core/weather/degree-day-comparison.ts';
 import { MEASURE_LIBRARY, type MeasureType } from '../../core/measure-library.ts';
 import { explainMeasure, TRACE_QUANTITIES } from '../../core/plan/trace.ts';
 import { ENGINE_VERSION } from '../../core/version.ts';
@@ -28,14 +32,12 @@ import {
   recordOf,
   type ChannelContext,
 } from './_define.ts';
+import { evaluateOptionsOf, evaluateStoredHome } from '../../db/evaluation-inputs.ts';
 
 /** The evaluation report of a stored home, with the project's library edits and the choices asked. */
 function evaluateStored(context: ChannelContext, homeId: number, choices: ChoicesRequest) {
   return context.store.read((read) =>
-    reportWithChoices(
-      evaluateHome(exportHomeFile(read, homeId), { library: effectiveLibrary(read) }),
-      choices,
-    ),
+    reportWithChoices(evaluateStoredHome(read, homeId).evaluation, choices),
   );
 }
 
@@ -80,11 +82,18 @@ export const planAndLibraryChannels = {
     response: measureTraceSchema,
     handle: ({ store }, request) =>
       store.read((read) =>
-        explainMeasure(
-          evaluateHome(exportHomeFile(read, request.homeId), { library: effectiveLibrary(read) }),
-          request.measureId,
-        ),
+        explainMeasure(evaluateStoredHome(read, request.homeId).evaluation, request.measureId),
       ),
+  }),
+  // A home planned hour by hour, each step set beside degree days; null on degree days.
+  'plan.compareDegreeDays': channel({
+    request: z.strictObject({ homeId: id }),
+    response: recordOf<DegreeDayComparison>().nullable(),
+    handle: ({ store }, request) =>
+      store.read((read) => {
+        const { file, options, evaluation } = evaluateStoredHome(read, request.homeId);
+        return file.hourlyWeather === undefined ? null : compareWithDegreeDays(evaluation, options);
+      }),
   }),
   'plans.save': channel({
     request: z.strictObject({ homeId: id, name: z.string().trim().min(1).max(200) }),
@@ -92,7 +101,7 @@ export const planAndLibraryChannels = {
     handle: ({ store }, request) => ({
       id: store.write((write) => {
         const inputs = exportHomeFile(write, request.homeId);
-        const result = evaluateHomeReport(inputs, { library: effectiveLibrary(write) });
+        const result = evaluateHomeReport(inputs, evaluateOptionsOf(write, request.homeId, inputs));
         return savePlan(write, {
           homeId: request.homeId,
           name: request.name,

@@ -180,6 +180,7 @@ export function validRequests(ids: KnownIds): ValidRequests {
     },
     // The measure the measures.add request adds (the corpus runs it before this one).
     'plan.explain': { homeId: ids.homeId, measureId: directMeasure().id },
+    'plan.compareDegreeDays': { homeId: ids.homeId },
     'plan.options': { homeId: ids.homeId, firstStepShare: 0.5, draws: 200, seed: 7 },
     'plans.save': { homeId: ids.homeId, name: 'Plan for the channel tests' },
     'plans.list': { homeId: ids.homeId },
@@ -206,6 +207,8 @@ export function validRequests(ids: KnownIds): ValidRequests {
       fileName: 'generated.csv',
       name: 'Channel test weather',
     },
+    'climates.hoursOf': { climateId: ids.climateId },
+    'climates.weatherYearOfHome': { homeId: ids.homeId },
     'climates.save': { id: ids.climateId, name: 'Channel climate', data: base.climate },
     'priceSets.list': {},
     'priceSets.save': { id: ids.priceSetId, name: 'Channel prices', data: base.prices },
