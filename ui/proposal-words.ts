@@ -167,16 +167,24 @@ export function economicsFacts(
   return facts;
 }
 
+/** The weather the figures rest on, in a family's words. */
+export function weatherWords(file: HomeFile, source: EvaluationReport['climateSource']): string {
+  if (source.kind === 'hourly') {
+    return (
+      `Worked hour by hour through ${formatNumber(source.hours ?? 0)} hours of weather for “${source.name}”, ` +
+      'each hour’s temperature and wind, a typical year rather than any one winter'
+    );
+  }
+  return `From the heating and cooling degree days of “${file.climate.name}”, a typical year rather than any one winter`;
+}
+
 /** Where the weather and the leakage figures come from. */
 export function methodFacts(
   file: HomeFile,
   report: EvaluationReport,
 ): { term: string; value: string }[] {
   return [
-    {
-      term: 'Weather',
-      value: `From the heating and cooling degree days of “${file.climate.name}”, a typical year rather than any one winter`,
-    },
+    { term: 'Weather', value: weatherWords(file, report.climateSource) },
     {
       term: 'Natural air leakage',
       value: `Worked out from the test by ${methodWords(report.infiltration.method)}`,

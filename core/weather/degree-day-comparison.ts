@@ -72,6 +72,9 @@ function addSavings(a: SourceSavings, b: SourceSavings): SourceSavings {
   };
 }
 
+/** Two figures within this share of each other are called the same in the reasons. */
+const SAME_SHARE = 0.005;
+
 const NO_SAVINGS: SourceSavings = { heatingFuelUnits: 0, coolingKwh: 0, annualSavingsUsd: 0 };
 
 function percentDifference(hourly: number, degreeDays: number): string {
@@ -139,8 +142,11 @@ export function compareWithDegreeDays(
     `Natural infiltration at test-in over the heating season: ${hourlyCfm.toFixed(1)} cfm with ` +
       `each hour's temperature difference and wind, counted by that hour's share of the load, ` +
       `against ${ddCfm.toFixed(1)} cfm from the season's mean difference and wind ` +
-      `(${percentDifference(hourlyCfm, ddCfm)}): cold hours drive more stack flow and carry ` +
-      `more of the load, so the hours weigh them as the means cannot.`,
+      `(${percentDifference(hourlyCfm, ddCfm)})` +
+      (Math.abs(hourlyCfm - ddCfm) <= SAME_SHARE * ddCfm
+        ? '.'
+        : ': the colder and windier hours drive more flow and carry more of the load, so the ' +
+          'hours weigh them as one season’s means cannot.'),
     `The package saves $${hourlyTotal.annualSavingsUsd.toFixed(2)} a year hour by hour and ` +
       `$${ddTotal.annualSavingsUsd.toFixed(2)} on degree days ` +
       `(${percentDifference(hourlyTotal.annualSavingsUsd, ddTotal.annualSavingsUsd)}); both value ` +

@@ -116,9 +116,10 @@ export class ChoicesState implements HoldsDrafts {
     const homeId = this.homeId;
     if (homeId === null || this.#workspace.homeId !== homeId) return;
     const generation = ++this.#generation;
-    const [file, library] = await Promise.all([
+    const [file, library, weather] = await Promise.all([
       call('homeFile.export', { id: homeId }),
       call('library.list', {}),
+      call('climates.weatherYearOfHome', { homeId }),
     ]);
     if (generation !== this.#generation) return;
     if (!file.ok) {
@@ -129,11 +130,16 @@ export class ChoicesState implements HoldsDrafts {
       this.inputsFailure = library.error.message;
       return;
     }
+    if (!weather.ok) {
+      this.inputsFailure = weather.error.message;
+      return;
+    }
     this.inputsFailure = null;
     this.#inputs = {
       key: `${homeId}/${generation}`,
       homeFile: file.value,
       libraryTypes: library.value.types,
+      ...(weather.value === null ? {} : { weather: weather.value }),
     };
     if (this.ranges.wanted) void this.runRanges();
     if (this.best.wanted) void this.findBest();

@@ -13,6 +13,7 @@ import type {
 import type { MeasureType } from '../../core/measure-library.ts';
 import type { ProposalOptionsSettings } from '../../core/plan/options.ts';
 import type { ProgramRangeResult } from '../../core/uncertainty/program-range.ts';
+import type { WeatherYearData } from '../../core/weather/weather-year-data.ts';
 
 /** What the worker evaluates from: the home file and the library it takes defaults from. */
 export interface ChoicesInputs {
@@ -20,6 +21,8 @@ export interface ChoicesInputs {
   key: string;
   homeFile: unknown;
   libraryTypes: readonly MeasureType[];
+  /** The weather year of a home planned hour by hour (climates.weatherYearOfHome). */
+  weather?: WeatherYearData;
 }
 
 export type ChoicesJob =

@@ -8,6 +8,7 @@ import { bestPackageFor, proposalOptionsReport, uncertaintyReportOf } from '../.
 import { InputError } from '../../core/errors.ts';
 import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
 import { lookupOf } from '../../core/measure-library.ts';
+import { weatherYearFromData } from '../../core/weather/weather-year-data.ts';
 import { programRange } from '../../core/uncertainty/program-range.ts';
 import type { ChoicesAnswer, ChoicesInputs, ChoicesJob, ChoicesValue } from './choices-protocol.ts';
 
@@ -23,7 +24,10 @@ let kept: { key: string; evaluation: Evaluation } | null = null;
 
 function evaluationOf(inputs: ChoicesInputs): Evaluation {
   if (kept?.key !== inputs.key) {
-    const evaluation = evaluateHome(inputs.homeFile, { library: lookupOf(inputs.libraryTypes) });
+    const evaluation = evaluateHome(inputs.homeFile, {
+      library: lookupOf(inputs.libraryTypes),
+      ...(inputs.weather ? { weather: weatherYearFromData(inputs.weather) } : {}),
+    });
     kept = { key: inputs.key, evaluation };
   }
   return kept.evaluation;
