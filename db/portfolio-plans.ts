@@ -28,7 +28,12 @@ import { DbError } from './errors.ts';
 import { exportHomeFile } from './home-file.ts';
 import { listHomes, type HomeFilter } from './repositories/homes.ts';
 import type { ReadAccess } from './store.ts';
-import { evaluateOptionsOf, type WeatherYearCache } from './evaluation-inputs.ts';
+import {
+  evaluateOptionsOf,
+  weatherYearOfHome,
+  type WeatherYearCache,
+} from './evaluation-inputs.ts';
+import type { WeatherYear } from '../core/weather.ts';
 
 /** Which homes: those of a filter (as the Homes list), or exactly these ids. */
 export type PortfolioSelection =
@@ -102,15 +107,38 @@ function selectedHomes(read: ReadAccess, selection: PortfolioSelection) {
  * plan needs); the others are left out, as `evaluatePortfolio` leaves them out.
  */
 export function portfolioHomeFiles(read: ReadAccess, selection: PortfolioSelection): HomeFile[] {
+  return portfolioHomeInputs(read, selection).files;
+}
+
+/**
+ * The chosen homes' files, and for those planned hour by hour their weather years: each
+ * year once in `weatherYears`, `weatherOfHome[i]` its place there for file i (null on degree
+ * days).
+ */
+export function portfolioHomeInputs(
+  read: ReadAccess,
+  selection: PortfolioSelection,
+): { files: HomeFile[]; weatherYears: WeatherYear[]; weatherOfHome: (number | null)[] } {
   const files: HomeFile[] = [];
+  const weatherOfHome: (number | null)[] = [];
+  const cache: WeatherYearCache = new Map();
+  const weatherYears: WeatherYear[] = [];
   for (const summary of selectedHomes(read, selection)) {
     try {
-      files.push(exportHomeFile(read, summary.id));
+      const file = exportHomeFile(read, summary.id);
+      const year = weatherYearOfHome(read, summary.id, file, cache);
+      files.push(file);
+      if (year === undefined) {
+        weatherOfHome.push(null);
+      } else {
+        if (!weatherYears.includes(year)) weatherYears.push(year);
+        weatherOfHome.push(weatherYears.indexOf(year));
+      }
     } catch (error) {
       if (!(error instanceof InputError) && !(error instanceof DbError)) throw error;
     }
   }
-  return files;
+  return { files, weatherYears, weatherOfHome };
 }
 
 /**

@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import { formatNumber, formatUsd } from '../core/format.ts';
 import { homesCsv, testOutCsv, typesCsv } from '../core/portfolio-csv.ts';
 import { exportHomeFile } from '../db/home-file.ts';
+import { weatherYearOfHome, type WeatherYearCache } from '../db/evaluation-inputs.ts';
 import { evaluatePortfolio, type PortfolioEvaluation } from '../db/portfolio-plans.ts';
 import { effectiveLibrary } from '../db/repositories/library.ts';
 import { openStore } from '../db/store.ts';
@@ -64,14 +65,23 @@ async function programRange(
   seed: number,
   programBias: number | undefined,
 ): Promise<ProgramRange | null> {
-  const { homes, libraryTypes } = context.store.read((read) => ({
-    homes: portfolio.homes.map((home) => exportHomeFile(read, home.homeId)),
-    libraryTypes: [...effectiveLibrary(read).all()],
-  }));
+  const { homes, weather, libraryTypes } = context.store.read((read) => {
+    const cache: WeatherYearCache = new Map();
+    const files = portfolio.homes.map((home) => exportHomeFile(read, home.homeId));
+    return {
+      homes: files,
+      weather: files.map(
+        (file, index) =>
+          weatherYearOfHome(read, portfolio.homes[index]?.homeId ?? 0, file, cache) ?? null,
+      ),
+      libraryTypes: [...effectiveLibrary(read).all()],
+    };
+  });
   const pool = openUncertaintyPool();
   try {
     await pool.run({
       homes,
+      weather,
       libraryTypes,
       options: { draws, seed, histogramBins: 0 },
       programTotals: true,

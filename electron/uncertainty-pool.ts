@@ -17,6 +17,7 @@ import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { InputError } from '../core/errors.ts';
 import type { MeasureType } from '../core/measure-library.ts';
+import type { WeatherYear } from '../core/weather.ts';
 import {
   runSettings,
   type FigureSpread,
@@ -53,6 +54,8 @@ export interface PortfolioRequest {
   options: Omit<UncertaintyOptions, 'stream'>;
   /** The project's measure library; the shipped one when absent. */
   libraryTypes?: readonly MeasureType[];
+  /** The weather year of each home planned hour by hour (null on degree days), by place. */
+  weather?: readonly (WeatherYear | null)[];
   /** Homes in every batch; by default 100, shrinking to 10 over the last batches. */
   batchHomes?: number;
   /** Also add the homes up draw by draw: the program's range (`lastProgramRange`). */
@@ -260,6 +263,7 @@ function batchesOf(request: PortfolioRequest, workerCount: number): UncertaintyB
       batchId: batches.length,
       firstIndex: first,
       homes: request.homes.slice(first, first + size),
+      ...(request.weather ? { weather: request.weather.slice(first, first + size) } : {}),
       options: request.options,
       ...(request.libraryTypes ? { libraryTypes: request.libraryTypes } : {}),
     });

@@ -12,6 +12,7 @@ import { performance } from 'node:perf_hooks';
 import { parentPort, workerData } from 'node:worker_threads';
 import { InputError } from '../core/errors.ts';
 import { lookupOf, type MeasureType } from '../core/measure-library.ts';
+import type { WeatherYear } from '../core/weather.ts';
 import { compileMeasuresKernel } from '../core/plan/kernel.ts';
 import {
   allocateSamples,
@@ -31,6 +32,8 @@ export interface UncertaintyBatch {
   batchId: number;
   firstIndex: number;
   homes: readonly unknown[];
+  /** `weather[i]`: home i's weather year when it is planned hour by hour, else null. */
+  weather?: readonly (WeatherYear | null)[];
   options: Omit<UncertaintyOptions, 'stream'>;
   /** The project's measure library; the shipped one when absent. */
   libraryTypes?: readonly MeasureType[];
@@ -113,7 +116,11 @@ export function runBatch(batch: UncertaintyBatch): UncertaintyBatchResult {
     const index = batch.firstIndex + offset;
     try {
       const started = performance.now();
-      const planned = homePackageOf(home, library ? { library } : {});
+      const weather = batch.weather?.[offset] ?? undefined;
+      const planned = homePackageOf(home, {
+        ...(library ? { library } : {}),
+        ...(weather ? { weather } : {}),
+      });
       const evaluated = performance.now();
       evaluateMs += evaluated - started;
       const kernel = compileMeasuresKernel(planned);

@@ -14,6 +14,7 @@ import { Xoshiro128StarStar } from './random.ts';
 import { rangeSampler, sampleRange } from './samplers.ts';
 import { homePackageOf } from './portfolio-home.ts';
 import { spreadOf, type FigureSpread } from './summary.ts';
+import type { WeatherYear } from '../weather/hourly-airflow.ts';
 
 /**
  * The stream of the program-wide bias: above any home's place in a portfolio (streams are
@@ -72,12 +73,14 @@ export interface ProgramRangeResult {
  * @param options.seed - whole number from 0 to 2^32 − 1
  * @param options.programBias - a program-wide bias's ± fraction (programBiasScale); none when absent
  * @param library - the project's measure library
+ * @param weatherOf - the weather year of home i when it is planned hour by hour
  * @throws InputError naming `draws` or `seed` when out of range
  */
 export function programRange(
   homes: readonly unknown[],
   options: { draws: number; seed: number; programBias?: number },
   library?: MeasureLookup,
+  weatherOf?: (index: number) => WeatherYear | undefined,
 ): ProgramRangeResult {
   if (!(Number.isInteger(options.draws) && options.draws >= 1 && options.draws <= 100_000)) {
     throw InputError.at('draws', `expected a whole number from 1 to 100000, got ${options.draws}`);
@@ -91,7 +94,10 @@ export function programRange(
   const failed: ProgramRangeResult['failed'] = [];
   homes.forEach((home, index) => {
     try {
-      const kernel = compileMeasuresKernel(homePackageOf(home, library ? { library } : {}));
+      const weather = weatherOf?.(index);
+      const kernel = compileMeasuresKernel(
+        homePackageOf(home, { ...(library ? { library } : {}), ...(weather ? { weather } : {}) }),
+      );
       const settings = runSettings({
         draws: options.draws,
         seed: options.seed,

@@ -6,7 +6,12 @@ import { z } from 'zod';
 import { reportWithChoices, type EvaluationWithChoices } from '../../core/choices.ts';
 import { evaluateHome } from '../../core/evaluate.ts';
 import { InputError } from '../../core/errors.ts';
-import { detectAndParseWeather, weatherYearOf } from '../../core/weather.ts';
+import {
+  detectAndParseWeather,
+  weatherYearData,
+  weatherYearOf,
+  type WeatherYearData,
+} from '../../core/weather.ts';
 import type { HomeFile } from '../../core/schema.ts';
 import { exportHomesCsv, resultsCsv, type HomesCsvExport } from '../../db/csv-export.ts';
 import {
@@ -22,7 +27,7 @@ import type { MeasureType } from '../../core/measure-library.ts';
 import {
   evaluatePortfolio,
   MAX_PORTFOLIO_HOMES,
-  portfolioHomeFiles,
+  portfolioHomeInputs,
   type PortfolioEvaluation,
   type PortfolioSelection,
 } from '../../db/portfolio-plans.ts';
@@ -139,12 +144,20 @@ export const fileAndPortfolioChannels = {
     response: z.strictObject({
       files: z.array(recordOf<HomeFile>()),
       libraryTypes: z.array(recordOf<MeasureType>()),
+      // Homes planned hour by hour: each year once, and file i's place among them (or null).
+      weatherYears: z.array(recordOf<WeatherYearData>()),
+      weatherOfHome: z.array(z.int().min(0).nullable()),
     }),
     handle: ({ store }, request) =>
-      store.read((read) => ({
-        files: portfolioHomeFiles(read, selectionOf(request)),
-        libraryTypes: [...effectiveLibrary(read).all()],
-      })),
+      store.read((read) => {
+        const inputs = portfolioHomeInputs(read, selectionOf(request));
+        return {
+          files: inputs.files,
+          libraryTypes: [...effectiveLibrary(read).all()],
+          weatherYears: inputs.weatherYears.map(weatherYearData),
+          weatherOfHome: inputs.weatherOfHome,
+        };
+      }),
   }),
   // The program's fitted factors written into the chosen homes not yet started.
   'portfolio.applyCalibration': channel({

@@ -16,6 +16,7 @@ import {
   runDraws,
   runSettings,
 } from '../../core/uncertainty/monte-carlo.ts';
+import type { WeatherYear } from '../../core/weather.ts';
 import { DEMO_HOMES } from '../../db/demo/alder-creek.ts';
 import {
   openUncertaintyPool,
@@ -146,6 +147,38 @@ describe('uncertainty pool', () => {
       expect(result.value.histograms.npvUsd.counts).toEqual([]);
       expect({ ...result.value, histograms: null }).toEqual({ ...full.value, histograms: null });
     });
+  });
+
+  it('plans homes hour by hour on the weather years given, as the one-thread path does', async () => {
+    // A year whose temperature swings through the seasons and the day, wind with it.
+    const hours = 8760;
+    const year: WeatherYear = {
+      name: 'Swinging',
+      elevationFt: 0,
+      outdoorF: Float64Array.from(
+        { length: hours },
+        (_, hour) => 50 - 30 * Math.cos((2 * Math.PI * hour) / hours) + 6 * Math.sin(hour / 3.8),
+      ),
+      windMph: Float64Array.from(
+        { length: hours },
+        (_, hour) => 5 + 4 * Math.abs(Math.sin(hour / 29)),
+      ),
+      humidityRatio: new Float64Array(hours).fill(0.006),
+    };
+    const hourly = DEMO_HOMES.slice(0, 4).map((home) => ({ ...home, hourlyWeather: {} }));
+    const homes: unknown[] = [...hourly, ...DEMO_HOMES.slice(4, 6)];
+    const weather = homes.map((_, index) => (index < hourly.length ? year : null));
+    const options = { draws: 200, seed: 11, histogramBins: 0 };
+    await two.run({ homes, weather, options, programTotals: true, batchHomes: 2 });
+    const single = programRange(homes, options, undefined, (index) => weather[index] ?? undefined);
+    expect(single.failed).toEqual([]);
+    expect(two.lastProgramRange?.homes).toBe(homes.length);
+    expect(two.lastProgramRange?.npvUsd).toEqual(single.npvUsd);
+    // Without the years the hourly homes are refused, naming what they ask for.
+    const without = programRange(homes, options);
+    expect(without.failed.map((failure) => failure.field)).toEqual(
+      hourly.map(() => 'hourlyWeather'),
+    );
   });
 
   it('refuses bad options before any work, naming the field', async () => {

@@ -50,7 +50,12 @@ export class PortfolioState {
     }
     const outcome = await runChoicesJob({
       kind: 'program',
-      inputs: { homeFiles: files.value.files, libraryTypes: files.value.libraryTypes },
+      inputs: {
+        homeFiles: files.value.files,
+        libraryTypes: files.value.libraryTypes,
+        weatherYears: files.value.weatherYears,
+        weatherOfHome: files.value.weatherOfHome,
+      },
       request: {
         draws: this.rangeDraws,
         seed: this.rangeSeed,

@@ -34,8 +34,16 @@ export type ChoicesJob =
   | {
       id: number;
       kind: 'program';
-      /** A portfolio's home files (home i draws on stream i) and the project's library. */
-      inputs: { homeFiles: readonly unknown[]; libraryTypes: readonly MeasureType[] };
+      /**
+       * A portfolio's home files (home i draws on stream i), the project's library, and the
+       * weather years of homes planned hour by hour (file i's is weatherYears[weatherOfHome[i]]).
+       */
+      inputs: {
+        homeFiles: readonly unknown[];
+        libraryTypes: readonly MeasureType[];
+        weatherYears?: readonly WeatherYearData[];
+        weatherOfHome?: readonly (number | null)[];
+      };
       request: { draws: number; seed: number; programBias?: number };
     };
 

@@ -35,8 +35,14 @@ function evaluationOf(inputs: ChoicesInputs): Evaluation {
 
 function run(job: ChoicesJob): ChoicesValue {
   if (job.kind === 'program') {
-    const library = lookupOf(job.inputs.libraryTypes);
-    return { kind: 'program', value: programRange(job.inputs.homeFiles, job.request, library) };
+    const { homeFiles, libraryTypes, weatherYears = [], weatherOfHome = [] } = job.inputs;
+    const years = weatherYears.map(weatherYearFromData);
+    const weatherOf = (index: number) => {
+      const place = weatherOfHome[index];
+      return place === null || place === undefined ? undefined : years[place];
+    };
+    const value = programRange(homeFiles, job.request, lookupOf(libraryTypes), weatherOf);
+    return { kind: 'program', value };
   }
   const evaluation = evaluationOf(job.inputs);
   switch (job.kind) {
