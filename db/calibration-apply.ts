@@ -1,7 +1,7 @@
 /**
  * Putting the program's realization factors to use: the factors fitted over the tested homes
  * (db/portfolio-plans.ts) are written into the calibration of each chosen home whose work has
- * not started (job assessed or scheduled), so its plan scales the estimates of those types and
+ * not started (job audited, scoped or approved), so its plan scales the estimates of those types and
  * says so (core/measures.ts, the report's notes). Only factors that rest on enough homes are
  * applied. Removing the calibration gives the estimates back exactly: the measures themselves
  * are never changed.
@@ -12,7 +12,7 @@ import { getHome, listHomes, setHomeData } from './repositories/homes.ts';
 import type { ReadAccess, WriteAccess } from './store.ts';
 
 /** Jobs whose estimates may still change: the work has not started. */
-const NOT_STARTED = new Set(['assessed', 'scheduled']);
+const NOT_STARTED = new Set(['audited', 'scoped', 'approved']);
 
 export interface CalibrationOutcome {
   /** The homes whose calibration was written (or removed). */

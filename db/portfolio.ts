@@ -93,14 +93,14 @@ const INCOMPLETE = `
 /** Every count of homes in one pass over the table (its JSON read once per home). */
 const HOME_COUNTS = `
   WITH live AS MATERIALIZED (
-    SELECT town, heating_fuel, year_built, job_status, is_demo, ${INCOMPLETE} AS incomplete
+    SELECT town, heating_fuel, year_built, job_stage, is_demo, ${INCOMPLETE} AS incomplete
     FROM homes WHERE deleted_at IS NULL)
   SELECT 'all' AS dimension, NULL AS value, count(*) AS homes,
          coalesce(sum(is_demo), 0) AS demo, coalesce(sum(incomplete), 0) AS incomplete FROM live
   UNION ALL SELECT 'fuel', heating_fuel, count(*), 0, 0 FROM live GROUP BY heating_fuel
   UNION ALL SELECT 'town', town, count(*), 0, 0 FROM live GROUP BY town
   UNION ALL SELECT 'decade', (year_built / 10) * 10, count(*), 0, 0 FROM live GROUP BY 2
-  UNION ALL SELECT 'jobStatus', job_status, count(*), 0, 0 FROM live GROUP BY job_status`;
+  UNION ALL SELECT 'jobStatus', job_stage, count(*), 0, 0 FROM live GROUP BY job_stage`;
 
 /**
  * Each live home's test-in a plan would use (`planTestOf`): the one marked as its basis, else

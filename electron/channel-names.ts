@@ -57,6 +57,14 @@ export const CHANNEL_NAMES = [
   'bills.importTemperatures',
   'bills.analyse',
   'bills.clear',
+  'jobs.history',
+  'jobs.changeStatus',
+  'photos.list',
+  'photos.add',
+  'photos.get',
+  'photos.remove',
+  'workOrder.get',
+  'workOrder.recordTestOut',
 ] as const;
 
 export type ChannelNameList = (typeof CHANNEL_NAMES)[number];

@@ -20,6 +20,7 @@ import { choiceChannels } from './channels/choices.ts';
 import { clientSetAndSettingChannels } from './channels/clients-sets-and-settings.ts';
 import { fileAndPortfolioChannels } from './channels/files-and-portfolio.ts';
 import { homeChannels } from './channels/homes.ts';
+import { jobChannels } from './channels/jobs.ts';
 import { planAndLibraryChannels } from './channels/plans-and-library.ts';
 import { testAndMeasureChannels } from './channels/tests-and-measures.ts';
 
@@ -34,6 +35,7 @@ export const channels = {
   ...clientSetAndSettingChannels,
   ...fileAndPortfolioChannels,
   ...billChannels,
+  ...jobChannels,
 } as const;
 
 export type Channels = typeof channels;

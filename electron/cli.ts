@@ -11,6 +11,7 @@
 import { parseArgs } from 'node:util';
 import { runBills } from './cli-bills.ts';
 import { runWeather } from './cli-weather.ts';
+import { runWorkOrder } from './cli-workorder.ts';
 import { InputError } from '../core/errors.ts';
 import { DbError } from '../db/errors.ts';
 import {
@@ -68,6 +69,8 @@ Usage:
   sealwork weather FILE [--base-f 65] [--json]
                                             an EPW or TMY3 weather file: place, hours, HDD and
                                             CDD at the base, by month, design temperatures
+  sealwork workorder HOME_ID [--json]       the crew's work order of a stored home: measures,
+                                            materials, hours, cautions, test-out target
   sealwork backup FILE                      copy the whole project to FILE
   sealwork restore FILE                     replace the project with a backup
   sealwork demo [--json]                    evaluate the invented demo homes
@@ -214,6 +217,8 @@ async function dispatch(parsed: Parsed, output: CliOutput): Promise<number> {
       return runBills(parsed, output);
     case 'weather':
       return runWeather(parsed, output);
+    case 'workorder':
+      return runWorkOrder(parsed, output);
     case 'backup':
       return runBackup(parsed, output);
     case 'restore':

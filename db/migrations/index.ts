@@ -8,6 +8,7 @@ import { migration0002 } from './0002-library-and-plans.ts';
 import { migration0003 } from './0003-settings-and-job-status.ts';
 import { migration0004 } from './0004-plan-basis.ts';
 import { migration0005 } from './0005-weather-and-bills.ts';
+import { migration0006 } from './0006-jobs-and-photos.ts';
 
 export interface Migration {
   /** The `PRAGMA user_version` the database has after this step. */
@@ -22,6 +23,7 @@ export const MIGRATIONS: readonly Migration[] = [
   migration0003,
   migration0004,
   migration0005,
+  migration0006,
 ];
 
 /** The schema version this build of Sealwork writes. */

@@ -6,13 +6,25 @@
 import { z } from 'zod';
 import { InputError } from '../../core/errors.ts';
 import { ach50, fitMultipointTest, type BlowerDoorPoint } from '../../core/leakage.ts';
+import { JOB_STAGES, JOB_STATUSES, type JobStage, type JobStatus } from '../../core/job-status.ts';
 import { homeDataSchema, type HomeData } from '../../core/schema.ts';
 import { classifySqliteError, DbError } from '../errors.ts';
 import type { ReadAccess, WriteAccess } from '../store.ts';
 import { flag, found, readJson, validated } from './_rows.ts';
 
-export const JOB_STATUSES = ['assessed', 'scheduled', 'inProgress', 'done', 'closed'] as const;
-export type JobStatus = (typeof JOB_STATUSES)[number];
+export { JOB_STATUSES, type JobStatus } from '../../core/job-status.ts';
+
+/**
+ * The job statuses of Sealwork before the stages of core/job-status.ts (schema version 5 and
+ * earlier), and the stage each became (db/migrations/0006; also for stored settings).
+ */
+export const LEGACY_JOB_STATUSES: Readonly<Record<string, JobStage>> = {
+  assessed: 'audited',
+  scheduled: 'approved',
+  inProgress: 'inProgress',
+  done: 'testedOut',
+  closed: 'closed',
+};
 
 const addressSchema = z.strictObject({
   street: z.string().max(200).optional(),
@@ -63,7 +75,7 @@ interface HomeRow {
   postal_code: string | null;
   is_demo: number;
   notes: string | null;
-  job_status: JobStatus;
+  job_stage: JobStatus;
   data: string;
   created_at: string;
   updated_at: string;
@@ -85,7 +97,7 @@ function homeOf(row: HomeRow): Home {
     address,
     isDemo: row.is_demo === 1,
     notes: row.notes,
-    jobStatus: row.job_status,
+    jobStatus: row.job_stage,
     data: readJson<HomeData>(row.data),
     createdAt: row.created_at,
     updatedAt: row.updated_at,
@@ -128,7 +140,6 @@ function rowValues(write: WriteAccess, home: z.output<typeof homeInputSchema>) {
     postal_code: home.address?.postalCode ?? null,
     is_demo: flag(home.isDemo),
     notes: home.notes ?? null,
-    job_status: home.jobStatus ?? 'assessed',
     data: JSON.stringify(storedData(home)),
     now: write.now,
   };
@@ -138,15 +149,22 @@ function rowValues(write: WriteAccess, home: z.output<typeof homeInputSchema>) {
 export function createHome(write: WriteAccess, input: HomeInput): number {
   const home = validated(homeInputSchema, input);
   checkLinks(write, home);
+  const stage = home.jobStatus ?? 'audited';
+  if (stage === 'onHold' || stage === 'declined') {
+    throw InputError.at(
+      'jobStatus',
+      `a new home's job starts at a stage (${JOB_STAGES.join(', ')}); put it on hold or decline it afterwards, with a reason`,
+    );
+  }
   try {
     const result = write
       .statement(
         `INSERT INTO homes (name, client_id, climate_id, price_set_id, street, town, region, postal_code,
-                            is_demo, notes, job_status, data, created_at, updated_at)
+                            is_demo, notes, job_stage, data, created_at, updated_at)
          VALUES (@name, @client_id, @climate_id, @price_set_id, @street, @town, @region, @postal_code,
-                 @is_demo, @notes, @job_status, @data, @now, @now)`,
+                 @is_demo, @notes, @job_stage, @data, @now, @now)`,
       )
-      .run(rowValues(write, home));
+      .run({ ...rowValues(write, home), job_stage: stage });
     return Number(result.lastInsertRowid);
   } catch (error) {
     throw classifySqliteError(error, { foreignKey: 'clientId' }) ?? error;
@@ -156,13 +174,19 @@ export function createHome(write: WriteAccess, input: HomeInput): number {
 /** Replaces a home's fields (not its tests or measures); keeps `createdAt`, moves `updatedAt`. */
 export function updateHome(write: WriteAccess, id: number, input: HomeInput): void {
   const home = validated(homeInputSchema, input);
+  const current = getHome(write, id).jobStatus;
+  if (home.jobStatus !== undefined && home.jobStatus !== current) {
+    throw InputError.at(
+      'jobStatus',
+      `expected the job's status as it stands, "${current}", or none: a job moves on by a status change (jobs.changeStatus), which keeps its history`,
+    );
+  }
   checkLinks(write, home);
   const result = write
     .statement(
       `UPDATE homes SET name = @name, client_id = @client_id, climate_id = @climate_id,
               price_set_id = @price_set_id, street = @street, town = @town, region = @region,
-              postal_code = @postal_code, is_demo = @is_demo, notes = @notes, job_status = @job_status,
-              data = @data, updated_at = @now
+              postal_code = @postal_code, is_demo = @is_demo, notes = @notes, data = @data, updated_at = @now
        WHERE id = @id AND deleted_at IS NULL`,
     )
     .run({ ...rowValues(write, home), id });
@@ -335,7 +359,7 @@ interface SummaryRow {
   floor_area_ft2: number | null;
   volume_ft3: number | null;
   heating_fuel: string | null;
-  job_status: JobStatus;
+  job_stage: JobStatus;
   is_demo: number;
   updated_at: string;
   deleted_at: string | null;
@@ -389,7 +413,7 @@ function summaryOf(read: ReadAccess, row: SummaryRow): HomeSummary {
     ach50: houseAch50,
     leakiness: leakinessBandOf(houseAch50),
     measureCount: row.measure_count,
-    jobStatus: row.job_status,
+    jobStatus: row.job_stage,
     isDemo: row.is_demo === 1,
     updatedAt: row.updated_at,
     deletedAt: row.deleted_at,
@@ -460,7 +484,7 @@ export function listHomes(read: ReadAccess, filter: HomeFilter = {}): HomeSummar
   const rows = read
     .statement(
       `SELECT h.id, h.name, h.town, h.client_id, c.name AS client_name, h.year_built, h.floor_area_ft2,
-              h.volume_ft3, h.heating_fuel, h.job_status, h.is_demo, h.updated_at, h.deleted_at,
+              h.volume_ft3, h.heating_fuel, h.job_stage, h.is_demo, h.updated_at, h.deleted_at,
               (SELECT count(*) FROM measures m WHERE m.home_id = h.id) AS measure_count,
               h.name || ' ' || coalesce(h.street, '') || ' ' || coalesce(h.town, '') || ' ' ||
                 coalesce(c.name, '') AS haystack,
@@ -473,7 +497,7 @@ export function listHomes(read: ReadAccess, filter: HomeFilter = {}): HomeSummar
          AND (@town IS NULL OR h.town = @town)
          AND (@fuel IS NULL OR h.heating_fuel = @fuel)
          AND (@client IS NULL OR h.client_id = @client)
-         AND (@job IS NULL OR h.job_status = @job)
+         AND (@job IS NULL OR h.job_stage = @job)
          AND (@w1 IS NULL OR haystack LIKE '%' || @w1 || '%' ESCAPE '\\')
          AND (@w2 IS NULL OR haystack LIKE '%' || @w2 || '%' ESCAPE '\\')
          AND (@w3 IS NULL OR haystack LIKE '%' || @w3 || '%' ESCAPE '\\')

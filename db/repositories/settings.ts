@@ -1,7 +1,7 @@
 /** The user's settings, each with a default until changed. */
 import { z } from 'zod';
 import { RANKINGS } from '../../core/schema.ts';
-import { JOB_STATUSES, LEAKINESS_BANDS } from './homes.ts';
+import { JOB_STATUSES, LEAKINESS_BANDS, LEGACY_JOB_STATUSES } from './homes.ts';
 import type { ReadAccess, WriteAccess } from '../store.ts';
 import { readJson, validated } from './_rows.ts';
 
@@ -49,6 +49,25 @@ export const DEFAULT_SETTINGS: Settings = {
   portfolioSelections: [],
 };
 
+/**
+ * Saved selections as written before the job stages (schema version 5 and earlier): a
+ * selection of "scheduled" jobs now selects "approved" ones, and so on (LEGACY_JOB_STATUSES),
+ * so an upgraded project keeps its selections instead of falling back to none.
+ */
+function withStagesOfToday(selections: unknown): unknown {
+  if (!Array.isArray(selections)) return selections;
+  return selections.map((selection: unknown) => {
+    if (typeof selection !== 'object' || selection === null) return selection;
+    const { filter } = selection as { filter?: unknown };
+    if (typeof filter !== 'object' || filter === null) return selection;
+    const { jobStatus } = filter as { jobStatus?: unknown };
+    if (typeof jobStatus !== 'string' || !Object.hasOwn(LEGACY_JOB_STATUSES, jobStatus)) {
+      return selection;
+    }
+    return { ...selection, filter: { ...filter, jobStatus: LEGACY_JOB_STATUSES[jobStatus] } };
+  });
+}
+
 export function getSettings(read: ReadAccess): Settings {
   const rows = read.statement('SELECT key, value FROM settings').all() as {
     key: string;
@@ -59,6 +78,9 @@ export function getSettings(read: ReadAccess): Settings {
   const stored = Object.fromEntries(
     rows.filter((row) => known.has(row.key)).map((row) => [row.key, readJson<unknown>(row.value)]),
   );
+  if ('portfolioSelections' in stored) {
+    stored.portfolioSelections = withStagesOfToday(stored.portfolioSelections);
+  }
   const merged = { ...DEFAULT_SETTINGS, ...stored };
   // A setting from a newer version, or one hand-edited out of range, falls back to its default.
   const result = settingsSchema.safeParse(merged);

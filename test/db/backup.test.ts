@@ -28,6 +28,8 @@ import { LATEST_SCHEMA_VERSION } from '../../db/migrations/index.ts';
 import { replaceBills, replaceDailyTemperatures } from '../../db/repositories/bills.ts';
 import { createClient } from '../../db/repositories/clients.ts';
 import { createHome, deleteHome, listHomes } from '../../db/repositories/homes.ts';
+import { changeJobStatus } from '../../db/repositories/jobs.ts';
+import { addPhoto } from '../../db/repositories/photos.ts';
 import { saveLibraryEdit } from '../../db/repositories/library.ts';
 import { savePlan } from '../../db/repositories/plans.ts';
 import { climates, priceSets } from '../../db/repositories/reusable-sets.ts';
@@ -36,6 +38,7 @@ import { createWeatherYear, linkClimateWeatherYear } from '../../db/repositories
 import { openStore, type Store } from '../../db/store.ts';
 import { setAt, validBaseHome } from '../_lib/base-home.ts';
 import { billingScenario } from '../_lib/billing-files.ts';
+import { pngImage } from '../_lib/photo-bytes.ts';
 import { tmy3Year } from '../_lib/weather-files.ts';
 import { handHomes } from './_lib/hand-homes.ts';
 import { allRows, rowCounts } from './_lib/sqlite-rows.ts';
@@ -77,6 +80,9 @@ function fillProject(store: Store): void {
     const billing = billingScenario();
     replaceBills(write, first.id, billing.bills as UtilityBill[]);
     replaceDailyTemperatures(write, first.id, billing.temperatures);
+    // A job status change and a photo (its bytes a BLOB the backup must copy as they are).
+    changeJobStatus(write, first.id, { to: 'scoped', at: '2024-03-01', by: 'Backup test' });
+    addPhoto(write, first.id, { kind: 'before', caption: 'attic hatch' }, pngImage(24, 16, 3));
     saveLibraryEdit(write, 'attic-hatch', { defaultLifeYears: 10 });
     updateSettings(write, { units: 'SI' });
   });
@@ -204,7 +210,7 @@ describe('backup and restore', () => {
     expect(store.sqlite.pragma('user_version', { simple: true })).toBe(LATEST_SCHEMA_VERSION);
     expect(
       store.read((read) => listHomes(read)).map((home) => [home.name, home.jobStatus]),
-    ).toEqual([['Old home', 'assessed']]);
+    ).toEqual([['Old home', 'audited']]);
     store.close();
   });
 });

@@ -68,7 +68,7 @@ interface Spec {
   cfm50?: number;
   points?: { pa: number; cfm: number }[];
   measures?: number;
-  jobStatus?: 'assessed' | 'scheduled' | 'inProgress' | 'done' | 'closed';
+  jobStatus?: 'audited' | 'scoped' | 'approved' | 'inProgress' | 'testedOut' | 'closed';
   noHouse?: boolean;
   clientId?: number;
 }
@@ -181,7 +181,7 @@ describe('filters and sorts', () => {
           floorAreaFt2: 1800,
           cfm50: cfm50For(18),
           measures: 2,
-          jobStatus: 'scheduled',
+          jobStatus: 'approved',
         }),
         b: addHome(write, {
           name: '120 Mill Lane',
@@ -198,7 +198,7 @@ describe('filters and sorts', () => {
           floorAreaFt2: 2400,
           points: [...MULTIPOINT_READINGS],
           measures: 1,
-          jobStatus: 'scheduled',
+          jobStatus: 'approved',
         }),
         d: addHome(write, { name: 'Draft on Birch Street', noHouse: true, measures: 0 }),
       };
@@ -212,9 +212,9 @@ describe('filters and sorts', () => {
       listed(filter)
         .map((home) => home.id)
         .sort();
-    expect(idsOf({ jobStatus: 'scheduled' })).toEqual([ids.a, ids.c].sort());
-    expect(idsOf({ jobStatus: 'scheduled', town: 'Ashby' })).toEqual([ids.a]);
-    expect(idsOf({ jobStatus: 'done' })).toEqual([]);
+    expect(idsOf({ jobStatus: 'approved' })).toEqual([ids.a, ids.c].sort());
+    expect(idsOf({ jobStatus: 'approved', town: 'Ashby' })).toEqual([ids.a]);
+    expect(idsOf({ jobStatus: 'testedOut' })).toEqual([]);
     const multipointBand = ach50Of(fittedCfm50(MULTIPOINT_READINGS), VOLUME_FT3);
     // The readings' house is in the leaky band (7 to 15 ACH50): the check below depends on it.
     expect(multipointBand).toBeGreaterThanOrEqual(7);

@@ -139,6 +139,19 @@ const SEED: readonly { table: string; since: number; sql: string }[] = [
     since: 5,
     sql: `INSERT INTO daily_temperatures (id, home_id, date, mean_temp_f) VALUES (1, 1, '2023-01-04', 18.5)`,
   },
+  {
+    table: 'job_status_history',
+    since: 6,
+    sql: `INSERT INTO job_status_history (id, home_id, stage, changed_at, changed_by, reason, from_stage, created_at) VALUES
+            (1, 1, 'scoped', '2023-11-03', 'R. Okafor', NULL, NULL, '${TIME}'),
+            (2, 1, 'onHold', '2023-11-05', 'R. Okafor', 'waiting on an electrician', 'scoped', '${TIME}')`,
+  },
+  {
+    table: 'photos',
+    since: 6,
+    sql: `INSERT INTO photos (id, home_id, measure_key, kind, caption, media_type, bytes, sha256, created_at) VALUES
+            (1, 1, NULL, 'before', 'attic hatch', 'image/png', X'89504E470D0A1A0A', '${'0'.repeat(64)}', '${TIME}')`,
+  },
 ];
 
 /** Columns a migration added to a table that already existed, with the value old rows get. */
@@ -146,6 +159,8 @@ const ADDED_COLUMNS: readonly { table: string; version: number; column: string; 
   [
     { table: 'homes', version: 3, column: 'job_status', value: 'assessed' },
     { table: 'climates', version: 5, column: 'weather_year_id', value: null },
+    // 0006 fills job_stage from job_status; the seeded homes are at the default, "assessed".
+    { table: 'homes', version: 6, column: 'job_stage', value: 'audited' },
   ];
 
 /** The value a column's declared DEFAULT gives, evaluated by SQLite itself. */

@@ -173,7 +173,7 @@ describe('homes', () => {
         clientId,
         address: { street: '9 Weir Road', town: 'Fallbrook', region: 'ME', postalCode: '04999' },
         notes: 'side door',
-        jobStatus: 'scheduled',
+        jobStatus: 'approved',
         data: BASE_DATA,
       }),
     );
@@ -186,7 +186,7 @@ describe('homes', () => {
       address: { street: '9 Weir Road', town: 'Fallbrook', region: 'ME', postalCode: '04999' },
       isDemo: false,
       notes: 'side door',
-      jobStatus: 'scheduled',
+      jobStatus: 'approved',
       data: BASE_DATA,
       createdAt: time.nowIso(),
       updatedAt: time.nowIso(),
@@ -194,7 +194,7 @@ describe('homes', () => {
     });
   });
 
-  it('accepts a draft with parts missing, and a new home starts "assessed"', () => {
+  it('accepts a draft with parts missing, and a new home starts "audited"', () => {
     const { store } = project;
     const empty = store.write((write) => createHome(write, { name: 'Empty draft', data: {} }));
     const houseOnly = store.write((write) =>
@@ -203,7 +203,7 @@ describe('homes', () => {
     expect(store.read((read) => getHome(read, empty)).data).toEqual({});
     expect(store.read((read) => getHome(read, houseOnly))).toMatchObject({
       data: { house: BASE.house },
-      jobStatus: 'assessed',
+      jobStatus: 'audited',
     });
   });
 

@@ -291,14 +291,20 @@ describe('valid requests do what they say', () => {
     const input = baseHomeInput(ids.clientId);
     const { id } = call('homes.create', input);
     const created = call('homes.get', { id });
-    expect(created.home).toMatchObject({ name: input.name, jobStatus: 'scheduled', isDemo: false });
+    expect(created.home).toMatchObject({ name: input.name, jobStatus: 'approved', isDemo: false });
     expect(created.home.address).toEqual(input.address);
     expect(created.tests).toEqual([]);
-    call('homes.update', { id, home: { ...input, name: 'Renamed house', jobStatus: 'done' } });
+    call('homes.update', { id, home: { ...input, name: 'Renamed house' } });
     expect(call('homes.get', { id }).home).toMatchObject({
       name: 'Renamed house',
-      jobStatus: 'done',
+      jobStatus: 'approved',
     });
+    // The job moves on only by a status change, which keeps its history (jobs.changeStatus).
+    const moved = callChannel(project.context, 'homes.update', {
+      id,
+      home: { ...input, jobStatus: 'testedOut' },
+    });
+    expect(refusalProblems(moved, { kind: 'invalid', field: 'jobStatus' })).toEqual([]);
     const byTown = call('homes.list', { town: 'Testford', search: 'Renamed' });
     expect(byTown.map((home) => home.id)).toEqual([id]);
     expect(call('homes.list', { limit: 1 })).toHaveLength(1);

@@ -9,6 +9,7 @@ import { callChannel, type ChannelContext, type Reply } from '../../../electron/
 import { openProject } from '../../../db/project.ts';
 import type { Store } from '../../../db/store.ts';
 import { makeTempFolder, type TempFolder } from '../../_lib/cli-harness.ts';
+import { pngImage } from '../../_lib/photo-bytes.ts';
 import { baseHomeInput, type KnownIds } from './channel-requests.ts';
 
 /** An open project and the folder it lives in. */
@@ -54,7 +55,7 @@ export function openChannelProject(prefix: string): ChannelProject {
 
 /**
  * Adds, through the channels, one of each row the valid requests refer to: a client, a home
- * with a test-in and a measure, a saved plan, a climate and a price set.
+ * with a test-in, a measure and a photo, a saved plan, a climate and a price set.
  *
  * @param context - the project's channel context
  * @returns their ids
@@ -80,5 +81,12 @@ export function addKnownRows(context: ChannelContext): KnownIds {
   const priceSetId = valueOf(
     callChannel(context, 'priceSets.save', { name: 'Known prices', data: home.prices }),
   ).id;
-  return { homeId, testId, measureId, planId, climateId, priceSetId, clientId };
+  const photoId = valueOf(
+    callChannel(context, 'photos.add', {
+      homeId,
+      kind: 'other',
+      base64: pngImage(4, 4, 1).toString('base64'),
+    }),
+  ).id;
+  return { homeId, testId, measureId, planId, climateId, priceSetId, clientId, photoId };
 }

@@ -5,6 +5,7 @@
  * compile error. The house is the invented base house of test/_lib/base-home.ts.
  */
 import { billingScenario, billsCsv, temperaturesCsv } from '../../_lib/billing-files.ts';
+import { pngImage } from '../../_lib/photo-bytes.ts';
 import { tmy3Year } from '../../_lib/weather-files.ts';
 import type { ChannelName, ChannelRequest } from '../../../electron/channels.ts';
 import { measureTypeEditSchema } from '../../../core/measure-library.ts';
@@ -22,6 +23,8 @@ export interface KnownIds {
   climateId: number;
   priceSetId: number;
   clientId: number;
+  /** A photo of the known home (a PNG made by test/_lib/photo-bytes.ts). */
+  photoId: number;
 }
 
 /** A valid request for each channel. */
@@ -52,7 +55,7 @@ export function baseHomeInput(clientId: number | null): HomeInput {
     address: { street: '12 Test Lane', town: 'Testford', region: 'TS', postalCode: '00000' },
     isDemo: false,
     notes: 'entered by the channel tests',
-    jobStatus: 'scheduled',
+    jobStatus: 'approved',
     data: {
       ...(data as unknown as HomeInput['data']),
       nFactorOverride: 18,
@@ -137,7 +140,7 @@ export function validRequests(ids: KnownIds): ValidRequests {
       town: 'Testford',
       heatingFuel: 'naturalGas',
       clientId: ids.clientId,
-      jobStatus: 'assessed',
+      jobStatus: 'audited',
       leakiness: 'leaky',
       sort: 'yearBuilt',
       descending: true,
@@ -248,6 +251,41 @@ export function validRequests(ids: KnownIds): ValidRequests {
       temperatures: 'stored',
     },
     'bills.clear': { homeId: ids.homeId, fuel: 'naturalGas', temperatures: true },
+    'jobs.history': { homeId: ids.homeId },
+    // The known home is "approved" (baseHomeInput); the test-out below moves it on again.
+    'jobs.changeStatus': {
+      homeId: ids.homeId,
+      to: 'inProgress',
+      at: '2024-06-02T08:00:00Z',
+      by: 'Channel tester',
+      reason: 'crew booked',
+    },
+    'photos.list': { homeId: ids.homeId },
+    'photos.add': {
+      homeId: ids.homeId,
+      // The measures.update request above makes the known measure channel-m2 (run first).
+      measureId: unitMeasure().id,
+      kind: 'before',
+      caption: 'recessed lights before sealing',
+      mediaType: 'image/png',
+      base64: pngImage(6, 4, 2).toString('base64'),
+    },
+    'photos.get': { id: ids.photoId },
+    'photos.remove': { id: ids.photoId },
+    // channel-m1 (measures.add) is estimated directly in CFM50: its count is given here.
+    'workOrder.get': {
+      homeId: ids.homeId,
+      measureIds: [directMeasure().id, unitMeasure().id],
+      quantities: { [directMeasure().id]: 40 },
+    },
+    'workOrder.recordTestOut': {
+      homeId: ids.homeId,
+      cfm50: 2900,
+      testedOn: '2024-06-03',
+      by: 'Channel tester',
+      measureIds: [directMeasure().id, unitMeasure().id],
+      note: 'test-out after the work',
+    },
   };
 }
 
