@@ -69,6 +69,8 @@ export interface Parsed {
   all: boolean;
   /** portfolio: the folder to write the CSV and JSON files to. */
   out: string | undefined;
+  /** workorder: the PDF file to write. */
+  pdf: string | undefined;
   /** portfolio: a program-wide bias's ± fraction, as typed. */
   bias: string | undefined;
   /** weather: the degree days' base, °F, as typed; evaluate: a weather file to plan hour by hour on. */

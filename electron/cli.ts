@@ -69,7 +69,8 @@ Usage:
   sealwork weather FILE [--base-f 65] [--json]
                                             an EPW or TMY3 weather file: place, hours, HDD and
                                             CDD at the base, by month, design temperatures
-  sealwork workorder HOME_ID [--json]       the crew's work order of a stored home: measures,
+  sealwork workorder HOME_ID [--json] [--pdf FILE]
+                                            the crew's work order of a stored home: measures,
                                             materials, hours, cautions, test-out target
   sealwork backup FILE                      copy the whole project to FILE
   sealwork restore FILE                     replace the project with a backup
@@ -109,6 +110,7 @@ function parse(argv: readonly string[]): Parsed {
       bias: { type: 'string' },
       'base-f': { type: 'string' },
       weather: { type: 'string' },
+      pdf: { type: 'string' },
       out: { type: 'string' },
       draws: { type: 'string' },
       seed: { type: 'string' },
@@ -142,6 +144,7 @@ function parse(argv: readonly string[]): Parsed {
       ...(values.estimate === undefined ? {} : { estimate: values.estimate }),
     },
     out: values.out,
+    pdf: values.pdf,
   };
 }
 

@@ -8,6 +8,7 @@
  * up as the crew reads it; the target as the test-in less each measure's expected reduction,
  * summed here; bad input exits 2 naming the argument with nothing on stdout (DESIGN.md).
  */
+import { spawnSync } from 'node:child_process';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { importHomeFile } from '../../db/home-file.ts';
 import { changeJobStatus } from '../../db/repositories/jobs.ts';
@@ -71,6 +72,8 @@ interface WorkOrderJson {
   job: { status: string };
 }
 
+const hasPoppler = spawnSync('pdftotext', ['-v']).status === 0;
+
 const STOP_BY_HAND = Math.sqrt(78 * (78 - 20)) / (0.052 * 0.55 * (14 / 8.2) ** 0.4);
 
 describe('sealwork workorder', () => {
@@ -116,12 +119,46 @@ describe('sealwork workorder', () => {
     expect(run.stdout).toMatch(/local codes/i);
   });
 
+  // poppler's pdftotext and pdfinfo read the file as any PDF reader would (CI installs them).
+  it.skipIf(!hasPoppler)('--pdf writes the same work order as a PDF poppler reads', async () => {
+    const json = JSON.parse(
+      (await runCli(['workorder', String(homeId), '--db', db, '--json'])).stdout,
+    ) as WorkOrderJson;
+    const path = `${folder.path}/order.pdf`;
+    const run = await runCli(['workorder', String(homeId), '--db', db, '--pdf', path]);
+    expect(run.stderr).toBe('');
+    expect(run.exitCode).toBe(0);
+    expect(run.stdout).toContain(path);
+    const info = spawnSync('pdfinfo', [path], { encoding: 'utf8' });
+    expect(info.status, info.stderr).toBe(0);
+    expect(info.stderr).toBe('');
+    expect(info.stdout).toMatch(/Page size:\s+612 x 792 pts \(letter\)/);
+    expect(info.stdout).toMatch(/Title:\s+Work order: Bad-input base house/);
+    const text = spawnSync('pdftotext', ['-layout', path, '-'], { encoding: 'utf8' });
+    expect(text.status, text.stderr).toBe(0);
+    const stop = Math.ceil(STOP_BY_HAND).toLocaleString('en-US');
+    expect(text.stdout).toContain(`Stop level: ${stop} CFM50.`);
+    const target = Math.round(json.order.target.targetCfm50).toLocaleString('en-US');
+    expect(text.stdout).toContain(`Aim for about ${target} CFM50`);
+    for (const measure of json.order.measures) expect(text.stdout).toContain(measure.name);
+    expect(text.stdout).toMatch(/local codes/i);
+    expect(text.stdout).toMatch(/page 1 of \d+/);
+  });
+
   it('exits 2 naming the argument for bad input, with nothing on stdout', async () => {
     const cases: [string[], RegExp][] = [
       [['workorder', 'seven', '--db', db], /HOME_ID must be a home's number/],
       [['workorder', '0', '--db', db], /HOME_ID must be a home's number/],
       [['workorder', '--db', db], /workorder takes HOME_ID/],
       [['workorder', '999', '--db', db], /home 999 does not exist \(homeId\)/],
+      [
+        ['workorder', String(homeId), '--db', db, '--pdf', `${folder.path}/no/such/folder/x.pdf`],
+        /--pdf: could not write/,
+      ],
+      [
+        ['workorder', String(homeId), '--db', db, '--json', '--pdf', `${folder.path}/x.pdf`],
+        /--pdf and --json/,
+      ],
     ];
     for (const [argv, message] of cases) {
       const run = await runCli(argv);
