@@ -220,6 +220,14 @@ function pack(evaluation: Evaluation): PackedHome {
   };
 }
 
+/** √(a² + b²) as V8's Math.hypot works it out for two finite numbers, without its variadic call. */
+function hypot(a: number, b: number): number {
+  const large = Math.max(Math.abs(a), Math.abs(b));
+  if (large === 0) return 0;
+  const small = Math.min(Math.abs(a), Math.abs(b)) / large;
+  return Math.sqrt(1 + small * small) * large;
+}
+
 function fmix(word: number): number {
   let h = word >>> 0;
   h ^= h >>> 16;
@@ -258,8 +266,8 @@ function referenceHome(home: PackedHome, stream: number, draws: number): number 
     const fan = Math.max(existing, need);
     const ih = kh * total;
     const ic = kc * total;
-    const ch = fan === 0 ? ih : balanced ? fan + ih : Math.hypot(fan, ih);
-    const cc = cooling ? (fan === 0 ? ic : balanced ? fan + ic : Math.hypot(fan, ic)) : 0;
+    const ch = fan === 0 ? ih : balanced ? fan + ih : hypot(fan, ih);
+    const cc = cooling ? (fan === 0 ? ic : balanced ? fan + ic : hypot(fan, ic)) : 0;
     out[0] = eh * ch;
     out[1] = ec * cc;
     out[2] = (fan - existing) * fanKwhPerCfm;
