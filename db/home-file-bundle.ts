@@ -28,8 +28,13 @@ export const MAX_BUNDLE_PHOTOS = 500;
 /** Base64 characters of the largest photo: 4 for every 3 bytes, padded. */
 export const MAX_PHOTO_BASE64_CHARS = Math.ceil(MAX_PHOTO_BYTES / 3) * 4;
 
-/** Standard base64 (RFC 4648 §4), padded: whole groups of four characters. */
-const BASE64 = /^(?:[A-Za-z0-9+/]{4})*(?:[A-Za-z0-9+/]{2}==|[A-Za-z0-9+/]{3}=)?$/;
+/**
+ * Standard base64 (RFC 4648 §4), padded: the alphabet, then at most two "=". With the length a
+ * multiple of four (checked beside it) that is exactly whole groups of four characters. One
+ * flat character class: a pattern of nested groups overflows V8's stack on a photo's millions
+ * of characters.
+ */
+const BASE64 = /^[A-Za-z0-9+/]*={0,2}$/;
 
 export const photoAttachmentSchema = z.strictObject({
   measureId: z.string().min(1).max(64).optional(),

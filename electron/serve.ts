@@ -4,18 +4,31 @@
  * guards against other web pages on the same machine:
  * - a Host or Origin other than its own gets 403 on every path (DNS rebinding, cross-site);
  * - every /api/ request needs this run's random token (`X-Sealwork-Token`), else 401;
- * - no CORS headers are ever sent; request bodies are limited in size.
+ * - no CORS headers are ever sent; request bodies are limited in size (2 MiB; a photo more).
  * Channels are `POST /api/<channel>` with a JSON body; replies are the channel's reply.
  */
 import { randomBytes } from 'node:crypto';
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { extname, join, normalize, sep } from 'node:path';
-import { callChannel, isChannelName, type ChannelContext } from './channels.ts';
+import { MAX_PHOTO_BASE64_CHARS } from '../db/home-file-bundle.ts';
+import { callChannel, isChannelName, type ChannelContext, type ChannelName } from './channels.ts';
 import { CONTENT_SECURITY_POLICY, isLocalHost, isOwnOrigin, tokensMatch } from './security.ts';
 
 /** The largest request body accepted, bytes (a home file with many measures fits easily). */
 export const MAX_BODY_BYTES = 2 * 1024 * 1024;
+
+/**
+ * The largest body of a photos.add request, bytes: the largest photo the store takes as base64
+ * (15 MiB of image, 20 MiB of text) with the usual limit again for the rest (caption, JSON).
+ * Only that channel gets it; every other keeps {@link MAX_BODY_BYTES}.
+ */
+export const MAX_PHOTO_BODY_BYTES = MAX_PHOTO_BASE64_CHARS + MAX_BODY_BYTES;
+
+/** The body limit of a channel, bytes. */
+export function bodyLimitOf(name: ChannelName): number {
+  return name === 'photos.add' ? MAX_PHOTO_BODY_BYTES : MAX_BODY_BYTES;
+}
 
 export const TOKEN_HEADER = 'x-sealwork-token';
 
@@ -66,11 +79,11 @@ function sendJson(response: ServerResponse, status: number, value: unknown): voi
   send(response, status, JSON.stringify(value), 'application/json; charset=utf-8');
 }
 
-/** Reads a request body up to the limit; null when it is larger. */
-function readBody(request: IncomingMessage): Promise<string | null> {
+/** Reads a request body up to `limitBytes`; null when it is larger. */
+function readBody(request: IncomingMessage, limitBytes: number): Promise<string | null> {
   return new Promise((resolve, reject) => {
     const declared = Number(request.headers['content-length'] ?? 0);
-    if (declared > MAX_BODY_BYTES) {
+    if (declared > limitBytes) {
       resolve(null);
       request.resume();
       return;
@@ -81,7 +94,7 @@ function readBody(request: IncomingMessage): Promise<string | null> {
     request.on('data', (chunk: Buffer) => {
       if (tooLarge) return; // the rest is read and dropped, so the 413 reaches the client
       size += chunk.length;
-      if (size > MAX_BODY_BYTES) {
+      if (size > limitBytes) {
         tooLarge = true;
         chunks.length = 0;
         resolve(null);
@@ -137,7 +150,7 @@ async function handle(
       });
       return;
     }
-    const body = await readBody(request);
+    const body = await readBody(request, bodyLimitOf(name));
     if (body === null) {
       sendJson(response, 413, {
         ok: false,

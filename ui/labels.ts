@@ -17,12 +17,17 @@ const FUEL_WORDS: Readonly<Record<Fuel, string>> = {
   pellets: 'Pellets',
 };
 
+// The same words as core/job-status.ts JOB_STATUS_LABELS (the work order prints those); that
+// module brings zod, which the page's Content Security Policy keeps out, so they are kept here.
 const JOB_WORDS: Readonly<Record<JobStatus, string>> = {
-  assessed: 'Assessed',
-  scheduled: 'Scheduled',
-  inProgress: 'Work under way',
-  done: 'Work done',
+  audited: 'Audited',
+  scoped: 'Scoped',
+  approved: 'Approved',
+  inProgress: 'In progress',
+  testedOut: 'Tested out',
   closed: 'Closed',
+  onHold: 'On hold',
+  declined: 'Declined',
 };
 
 function isFuel(code: string): code is Fuel {
@@ -35,9 +40,9 @@ export function fuelWords(code: string | null): string {
   return isFuel(code) ? FUEL_WORDS[code] : code;
 }
 
-/** A job's state in words. */
-export function jobWords(status: JobStatus): string {
-  return JOB_WORDS[status] ?? status;
+/** A job's state in words; a status the table does not know (a newer file's) as stored. */
+export function jobWords(status: string): string {
+  return Object.hasOwn(JOB_WORDS, status) ? JOB_WORDS[status as JobStatus] : status;
 }
 
 /** "1 home", "16 homes". */

@@ -12,6 +12,8 @@ export const settingsSchema = z.strictObject({
   laborRateUsdPerHour: z.number().min(0).max(1000),
   markupFraction: z.number().min(0).max(5),
   electricityKgCo2PerKwh: z.number().min(0).max(2).nullable(),
+  /** Who is using Sealwork, as job changes are signed ("By"); empty until given. */
+  userName: z.string().trim().max(100),
   /** The Portfolio's saved choices of homes, each a name and the filters it stands for. */
   portfolioSelections: z
     .array(
@@ -36,8 +38,8 @@ export type Settings = z.output<typeof settingsSchema>;
 /**
  * Defaults before the user sets anything. The 3 % real discount rate is the order of the
  * DOE/FEMP rate published with NIST Handbook 135's annual supplement (from memory; set your
- * program's rate). Labour rate and markup are demo defaults; the grid factor is unknown
- * until given.
+ * program's rate). Labour rate and markup are demo defaults; the grid factor and the user's
+ * name are unknown until given (a project from before the name was kept reads as no name).
  */
 export const DEFAULT_SETTINGS: Settings = {
   units: 'IP',
@@ -46,6 +48,7 @@ export const DEFAULT_SETTINGS: Settings = {
   laborRateUsdPerHour: 58,
   markupFraction: 0.15,
   electricityKgCo2PerKwh: null,
+  userName: '',
   portfolioSelections: [],
 };
 

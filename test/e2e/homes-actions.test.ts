@@ -29,7 +29,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { HomeFile } from '../../core/schema.ts';
 import { exportHomeFile, planTestOf } from '../../db/home-file.ts';
 import { listClients } from '../../db/repositories/clients.ts';
-import { getHome, listHomes, updateHome, type Home } from '../../db/repositories/homes.ts';
+import { getHome, listHomes } from '../../db/repositories/homes.ts';
+import { changeJobStatus } from '../../db/repositories/jobs.ts';
 import { listLeakageTests } from '../../db/repositories/leakage-tests.ts';
 import { listMeasures } from '../../db/repositories/measures.ts';
 import { axeViolations } from './_lib/axe.ts';
@@ -141,21 +142,6 @@ function deletedIds(): number[] {
   return rig.project.store
     .read((read) => listHomes(read, { deleted: true }))
     .map((home) => home.id);
-}
-
-/** The homes.update input that keeps a home as it is but for its job state. */
-function withJobStatus(home: Home, jobStatus: Home['jobStatus']) {
-  return {
-    name: home.name,
-    clientId: home.clientId,
-    climateId: home.climateId,
-    priceSetId: home.priceSetId,
-    address: home.address,
-    isDemo: home.isDemo,
-    notes: home.notes,
-    jobStatus,
-    data: home.data,
-  };
 }
 
 /** A home file without the parts that name it, to compare a copy or an import with its source. */
@@ -278,14 +264,17 @@ async function expectLayoutHolds(page: Page, screenshot: string): Promise<void> 
 beforeAll(async () => {
   rig = await startRig('sealwork-e2e-homes-actions-');
   folder = mkdtempSync(join(tmpdir(), 'sealwork-e2e-homes-files-'));
-  // Every demo home starts "assessed": give three others a job state of their own to filter by.
+  // Every demo home starts "audited": move three of them on, a stage at a time as the job rule
+  // asks (jobs.changeStatus's own repository), so the list has job states to filter by.
   rig.project.store.write((write) => {
     const ids = listHomes(write).map((home) => home.id);
-    const states: Home['jobStatus'][] = ['scheduled', 'scheduled', 'done'];
-    states.forEach((state, index) => {
+    const paths = [['scoped', 'approved'], ['approved'], ['approved', 'inProgress']];
+    paths.forEach((path, index) => {
       const id = ids[index * 4];
       if (id === undefined) throw new Error('the demo project has too few homes for this test');
-      updateHome(write, id, withJobStatus(getHome(write, id), state));
+      path.forEach((to, step) => {
+        changeJobStatus(write, id, { to, at: `2026-02-0${step + 1}`, by: 'Test crew' });
+      });
     });
   });
 }, SETUP_TIMEOUT_MS);
@@ -344,10 +333,14 @@ describe(
       await expectListed(page, sortedIds(ofClient), false);
       await choose(page, page.getByLabel('Client', { exact: true }), '');
 
-      const scheduled = facts.filter((home) => home.jobStatus === 'scheduled');
-      expect(scheduled.length).toBe(2);
-      await choose(page, page.getByLabel('Job', { exact: true }), 'scheduled');
-      await expectListed(page, sortedIds(scheduled), false);
+      const approved = facts.filter((home) => home.jobStatus === 'approved');
+      expect(approved.length).toBe(2);
+      await choose(page, page.getByLabel('Job', { exact: true }), 'approved');
+      await expectListed(page, sortedIds(approved), false);
+      const underWay = facts.filter((home) => home.jobStatus === 'inProgress');
+      expect(underWay.length).toBe(1);
+      await choose(page, page.getByLabel('Job', { exact: true }), 'inProgress');
+      await expectListed(page, sortedIds(underWay), false);
       await choose(page, page.getByLabel('Job', { exact: true }), '');
 
       // The band with the most homes that is not all of them, and one with none if there is one.
@@ -446,7 +439,7 @@ describe(
       await nameBox.waitFor();
       expect(await isFocused(nameBox)).toBe(true);
       await page.keyboard.type(name);
-      await choose(page, page.locator('#new-home-jobStatus'), 'scheduled');
+      await choose(page, page.locator('#new-home-jobStatus'), 'scoped');
       await choose(page, page.locator('#new-home-client'), 'new');
       await typeInto(page, page.locator('#new-home-clientName'), client);
       await typeInto(page, page.locator('#new-home-clientPhone'), '555-0142');
@@ -519,7 +512,7 @@ describe(
       expect(home).toMatchObject({
         name,
         clientId: stored?.id,
-        jobStatus: 'scheduled',
+        jobStatus: 'scoped',
         isDemo: false,
         address: { street: '77 Quillon Street', town: 'Quillonby' },
       });

@@ -16,18 +16,22 @@
  * Service Cheat Sheet (limit request bodies); Electron Security tutorial, checklist item 7
  * "Define a Content Security Policy".
  */
+import { createHash } from 'node:crypto';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { networkInterfaces } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { callChannel } from '../../electron/channels.ts';
 import { CONTENT_SECURITY_POLICY } from '../../electron/security.ts';
+import { MAX_PHOTO_BYTES } from '../../db/repositories/photos.ts';
 import {
   MAX_BODY_BYTES,
+  MAX_PHOTO_BODY_BYTES,
   startBrowserHost,
   TOKEN_HEADER,
   type BrowserHost,
 } from '../../electron/serve.ts';
+import { pngImage } from '../_lib/photo-bytes.ts';
 import { openChannelProject, type ChannelProject } from './_lib/channel-project.ts';
 import { baseHomeInput } from './_lib/channel-requests.ts';
 import { httpRequest, rawHttp, type HttpCall, type HttpReply } from './_lib/http-client.ts';
@@ -343,6 +347,79 @@ describe('the channels over HTTP', () => {
     }
     expect(projectDigest(project.store.sqlite)).toBe(digest);
   });
+});
+
+describe('the larger body of photos.add', () => {
+  const sha256 = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
+  const homeIdOf = () => {
+    const homes = callChannel(project.context, 'homes.list', {});
+    const id = homes.ok ? homes.value[0]?.id : undefined;
+    if (id === undefined) throw new Error('the project has no home');
+    return id;
+  };
+  const photoBody = (homeId: number, photo: Buffer) =>
+    JSON.stringify({ homeId, kind: 'before', base64: photo.toString('base64') });
+
+  it('leaves room for the largest photo the store takes, as base64 in JSON', () => {
+    // Base64 writes every 3 bytes as 4 characters, the last group padded (RFC 4648 §4); the
+    // rest of the request (homeId, kind, caption of at most 500 characters, each at most a
+    // 6-character JSON escape) is well under the 2 MiB that stays for it.
+    const largestBase64Chars = 4 * Math.ceil(MAX_PHOTO_BYTES / 3);
+    const restOfRequestChars = 200 + 500 * 6;
+    expect(MAX_PHOTO_BODY_BYTES).toBeGreaterThanOrEqual(largestBase64Chars + restOfRequestChars);
+    expect(MAX_PHOTO_BODY_BYTES - largestBase64Chars).toBe(MAX_BODY_BYTES);
+  });
+
+  it('takes a photo past the small limit, byte for byte, and only on that channel', async () => {
+    const homeId = homeIdOf();
+    // 900 × 900 RGB pixels that do not compress: about 2.4 MB, 3.2 MB as base64.
+    const photo = pngImage(900, 900, 7);
+    const body = photoBody(homeId, photo);
+    expect(Buffer.byteLength(body)).toBeGreaterThan(MAX_BODY_BYTES);
+    const reply = await post('/api/photos.add', body);
+    expect(reply.status).toBe(200);
+    const added = JSON.parse(reply.body) as { ok: boolean; value: { id: number; sha256: string } };
+    expect(added, reply.body.slice(0, 300)).toMatchObject({ ok: true });
+    expect(added.value.sha256).toBe(sha256(photo));
+    const stored = callChannel(project.context, 'photos.get', { id: added.value.id });
+    expect(stored.ok && Buffer.from(stored.value.base64, 'base64').equals(photo)).toBe(true);
+
+    // A body of the same size to any other channel is still too large.
+    const digest = projectDigest(project.store.sqlite);
+    const request = createBody();
+    const padded = request + ' '.repeat(Buffer.byteLength(body) - Buffer.byteLength(request));
+    for (const name of ['homes.create', 'homes.list', 'photos.list']) {
+      const other = await post(`/api/${name}`, padded);
+      expect(other.status, name).toBe(413);
+    }
+    expect(projectDigest(project.store.sqlite)).toBe(digest);
+  });
+
+  it('refuses a photos.add body past its own limit (413), writing nothing', async () => {
+    const digest = projectDigest(project.store.sqlite);
+    const small = photoBody(homeIdOf(), pngImage(4, 4, 3));
+    const over = small + ' '.repeat(MAX_PHOTO_BODY_BYTES + 1 - Buffer.byteLength(small));
+    const refused = await post('/api/photos.add', over);
+    expect(refused.status).toBe(413);
+    expect(JSON.parse(refused.body)).toMatchObject({ ok: false, error: { kind: 'invalid' } });
+    expect(projectDigest(project.store.sqlite)).toBe(digest);
+  }, 60_000);
+
+  it(
+    'takes the largest photo the store takes, byte for byte',
+    async () => {
+      const homeId = homeIdOf();
+      // 2280 × 2290 RGB pixels: just under the store's 15 MiB once deflated (they do not compress).
+      const photo = pngImage(2280, 2290, 11);
+      expect(photo.length).toBeLessThanOrEqual(MAX_PHOTO_BYTES);
+      expect(photo.length).toBeGreaterThan(MAX_PHOTO_BYTES * 0.99);
+      const reply = await post('/api/photos.add', photoBody(homeId, photo));
+      expect(reply.status).toBe(200);
+      const added = JSON.parse(reply.body) as { ok: boolean; value: { sha256: string } };
+      expect(added.ok && added.value.sha256).toBe(sha256(photo));
+    },
+    60_000,
+  );
 });
 
 describe('the screens’ files', () => {

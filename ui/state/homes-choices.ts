@@ -1,6 +1,7 @@
 /**
- * The choices of the Homes list's filters and sort, in words: job states, leakiness bands (with
- * where their limits come from), what the list can be ordered by and the two directions of each.
+ * The choices of the Homes list's filters and sort, in words: job states (the six stages, then
+ * on hold and declined), leakiness bands (with where their limits come from), what the list can
+ * be ordered by and the two directions of each.
  * The store decides which home is in which band (db/repositories/homes.ts); these are its words.
  */
 import type { ChannelRequest, ChannelResponse } from '../../electron/channels.ts';
@@ -18,17 +19,28 @@ export interface Choice<Value extends string> {
 
 // Records keyed by the store's types, so a state, band or sort added there and not here fails
 // to compile. The screens cannot import the store's lists themselves (zod would come along).
-const JOB_STATUSES: Readonly<Record<JobStatus, true>> = {
-  assessed: true,
-  scheduled: true,
+// The six stages in the order the work goes, then the two states that stop a job; `true` for a
+// stage (a new home may start at one), as core/job-status.ts JOB_STAGES and JOB_STATUSES.
+const JOB_STATUSES: Readonly<Record<JobStatus, boolean>> = {
+  audited: true,
+  scoped: true,
+  approved: true,
   inProgress: true,
-  done: true,
+  testedOut: true,
   closed: true,
+  onHold: false,
+  declined: false,
 };
 
+/** Every job state, in the order the work goes, on hold and declined last. */
 export const JOB_STATUS_CHOICES: readonly Choice<JobStatus>[] = (
   Object.keys(JOB_STATUSES) as JobStatus[]
 ).map((value) => ({ value, words: jobWords(value) }));
+
+/** The six stages only: what a new home may start at (on hold and declined need a reason). */
+export const JOB_STAGE_CHOICES: readonly Choice<JobStatus>[] = JOB_STATUS_CHOICES.filter(
+  (choice) => JOB_STATUSES[choice.value],
+);
 
 /** The bands' words, their ACH50 limits as the store sets them (LEAKINESS_LOWER_ACH50). */
 const LEAKINESS_WORDS: Readonly<Record<LeakinessBand, string>> = {

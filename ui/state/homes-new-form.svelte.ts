@@ -45,7 +45,7 @@ function emptyDraft(): Record<NewHomeKey, string> {
   >;
   return {
     name: '',
-    jobStatus: 'assessed',
+    jobStatus: 'audited',
     client: '',
     clientName: '',
     clientPhone: '',

@@ -146,6 +146,20 @@ export class PortfolioState {
     await this.load();
   }
 
+  /** How many of the project's homes stand at each job status (portfolio.summary). */
+  jobCounts = $state.raw<readonly { status: string; homes: number }[] | null>(null);
+  jobCountsFailure = $state<string | null>(null);
+
+  async loadJobCounts(): Promise<void> {
+    const reply = await call('portfolio.summary', {});
+    if (reply.ok) {
+      this.jobCounts = reply.value.byJobStatus;
+      this.jobCountsFailure = null;
+    } else {
+      this.jobCountsFailure = reply.error.message;
+    }
+  }
+
   /** The towns and fuels of the project's homes, for the filters' choices. */
   async loadChoices(): Promise<void> {
     const reply = await call('homes.list', { limit: 10_000 });

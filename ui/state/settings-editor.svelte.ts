@@ -128,6 +128,17 @@ export class SettingsEditor {
     await this.#save(spec.key, spec.label, { [spec.key]: value }, spec.scale);
   }
 
+  /** Saves a text setting (the user's name) as typed, trimmed; the store judges its length. */
+  async commitText(key: 'userName', label: string): Promise<void> {
+    const text = this.typed[key];
+    if (text === undefined || this.stored === null) return;
+    if (this.stored[key] === text.trim()) {
+      this.#settle(key);
+      return;
+    }
+    await this.#save(key, label, { [key]: text }, 1);
+  }
+
   /** Saves a choice (units, ranking) at once. */
   async choose(key: 'units' | 'ranking', label: string, value: string): Promise<void> {
     this.typed[key] = value;

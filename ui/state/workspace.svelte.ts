@@ -37,7 +37,12 @@ export interface FieldProblem {
 
 export type SaveOutcome = { ok: true } | { ok: false; message: string; problems: FieldProblem[] };
 
-/** The whole request body homes.update needs, from the home as homes.get returned it. */
+/**
+ * The whole request body homes.update needs, from the home as homes.get returned it. The job's
+ * status is left out: it moves only by jobs.changeStatus (which keeps its history), and
+ * homes.update refuses any other than the one stored, so an undo of an edit made before a
+ * status change would otherwise be refused.
+ */
 export function homeInputOf(home: StoredHome, data: StoredHome['data']): HomeInput {
   return {
     name: home.name,
@@ -47,7 +52,6 @@ export function homeInputOf(home: StoredHome, data: StoredHome['data']): HomeInp
     address: home.address,
     isDemo: home.isDemo,
     notes: home.notes,
-    jobStatus: home.jobStatus,
     data,
   };
 }
