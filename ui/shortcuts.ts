@@ -31,7 +31,7 @@ export const SHORTCUT_LIST: readonly ShortcutWords[] = [
   },
   { keys: ['Tab'], words: 'Move to the next control; Shift Tab to the one before' },
   { keys: ['Enter'], words: 'Follow a link, press a button, or save the box you are in' },
-  { keys: ['Ctrl', 'P'], words: 'Print; on the Proposal, the proposal alone' },
+  { keys: ['Ctrl', 'P'], words: 'Print; on the Proposal or the Work order, that document alone' },
 ];
 
 /** The parts of a key press the shortcuts look at. */

@@ -45,6 +45,7 @@ beforeAll(async () => {
     section('plan', 'Plan'),
     section('safety', 'Safety'),
     section('proposal', 'Proposal'),
+    section('work-order', 'Work order'),
     { hash: '#/portfolio', heading: 'Portfolio', name: 'portfolio' },
     { hash: '#/library', heading: 'Library', name: 'library' },
     { hash: '#/settings', heading: 'Settings', name: 'settings' },

@@ -11,6 +11,7 @@ export const SECTIONS = [
   { slug: 'plan', name: 'Plan' },
   { slug: 'safety', name: 'Safety' },
   { slug: 'proposal', name: 'Proposal' },
+  { slug: 'work-order', name: 'Work order' },
 ] as const;
 
 export type Section = (typeof SECTIONS)[number];
