@@ -37,14 +37,22 @@
  * package's figures in whole cents, certain to equal the Decimal figures
  * (best-package/step-cents.ts), so scores and ties compare exactly and the winner's figures
  * are computed once, here, by `packageFigures`. Subtrees are cut only where nothing in them
- * can win: over budget, a failed own SIR, a measure that removes nothing, and for the
- * methods whose infiltration is linear in CFM50 (nFactor, lblBasic, ashrae622) a bound on
- * what any package below a node can score (best-package/bounds.ts, on the energy table of
- * best-package/energy-cells.ts). The enhanced model (aim2) depends on where the leaks are and
- * may even give more infiltration after a step, so no such bound is proven for it: its homes
- * are searched with the other cuts only — still exact, but time grows as 2^n.
- * test/core/best-package.test.ts checks the search against brute force and each condition
- * the bounds rest on.
+ * can win: over budget, a failed own SIR, a measure that removes nothing, and a bound on
+ * what any package below a node can score: for the methods whose infiltration is linear in
+ * CFM50 (nFactor, lblBasic, ashrae622) best-package/bounds.ts on the energy table of
+ * best-package/energy-cells.ts, where a state's energy depends on its total alone; for the
+ * enhanced model (aim2) on degree-day seasons best-package/bounds-aim2.ts, which bounds the
+ * flow over the box of leakage by location the subtree can reach (interval bounds on AIM-2's
+ * formulas and their derivatives, best-package/aim2-box.ts). That bound is looser than the
+ * linear one (interval bounds widen with the box, and cut nothing where the box reaches a
+ * distribution at which AIM-2's flow has no bounded slope), so AIM-2 searches stay far
+ * slower. Hour-by-hour homes on the linear methods use the linear bound (each season's mean
+ * flows, the latent one included, stay linear in CFM50); a home on aim2 worked hour by hour
+ * has no proven bound and is searched with the other cuts only: still exact, but its time
+ * grows as 2^n.
+ * test/core/best-package.test.ts and best-package-aim2.test.ts check the search against brute
+ * force (degree-day, AIM-2 and hour-by-hour homes) and each condition the bounds rest on;
+ * best-package-interval.test.ts checks the interval rules.
  */
 import { savingsToInvestmentRatio, simplePaybackYears } from '../economics/index.ts';
 import { InputError } from '../errors.ts';
@@ -52,6 +60,7 @@ import type { Evaluation } from '../evaluate.ts';
 import { totalCfm50 } from '../home-model.ts';
 import type { PreparedMeasure } from '../measures.ts';
 import { Decimal, roundToCents, sumUsd } from '../money.ts';
+import { aim2Bounded, buildAim2Bound } from './best-package/bounds-aim2.ts';
 import { buildEnergyCells } from './best-package/energy-cells.ts';
 import { searchPackages, type PackageCents } from './best-package/search.ts';
 import { BOUNDED_METHODS, fanThresholdCfm50 } from './best-package/thresholds.ts';
@@ -306,7 +315,9 @@ export function bestPackage(evaluation: Evaluation, options: BestPackageOptions)
   const prices = buildPriceBook(evaluation.home);
   const { energy } = canonicalMeasures(evaluation);
   const health = healthAndSafetyWork(evaluation, prices);
-  const boundsUsed = BOUNDED_METHODS.includes(model.home.infiltrationMethod);
+  const linear = BOUNDED_METHODS.includes(model.home.infiltrationMethod);
+  const aim2 = aim2Bounded(model) ? buildAim2Bound(model, prices) : null;
+  const boundsUsed = linear || aim2 !== null;
   const fanUsd = roundToCents(
     new Decimal(model.home.ventilation?.fanCostUsd ?? DEFAULT_FAN_COST_USD),
   );
@@ -323,7 +334,8 @@ export function bestPackage(evaluation: Evaluation, options: BestPackageOptions)
     root: health.state,
     health: health.cents,
     fanCents: centsOf(fanUsd),
-    cells: boundsUsed ? buildEnergyCells(model, prices, totalCfm50(health.state.leakage)) : null,
+    cells: linear ? buildEnergyCells(model, prices, totalCfm50(health.state.leakage)) : null,
+    aim2,
     fanThresholdCfm50: fanThresholdCfm50(model),
   });
   const figures = packageFigures(

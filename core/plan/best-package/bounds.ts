@@ -115,7 +115,7 @@ function blockExtremes(cells: EnergyCells, block: number, out: RunExtremes): Run
 }
 
 /** Bounds on T over a cell or a run of cells, USD. */
-interface CellTerms {
+export interface CellTerms {
   pvUsd: number;
   savingsUsd: number;
   leastCostUsd: number;
@@ -123,7 +123,7 @@ interface CellTerms {
 }
 
 /** How an objective turns a cell's terms into an outlook, or null when none there passes. */
-function outlookMaker(node: BoundNode, settings: BoundSettings, slack: number) {
+export function outlookMaker(node: BoundNode, settings: BoundSettings, slack: number) {
   const surplusMatters = settings.packageSirAtLeastOne && node.energyCostUsd > 0;
   const surplusUsd = node.energyPvUsd - node.energyCostUsd;
   const outlook: CellOutlook = { score: 0, leastCostUsd: 0, fanPaid: false };
@@ -313,7 +313,7 @@ export function subtreeMayWin(
  * savings, so only 'sir' can still change (a cost lowers a positive SIR and can turn a null
  * one into a number).
  */
-function deadEndMayWin(
+export function deadEndMayWin(
   node: BoundNode,
   settings: BoundSettings,
   mayWin: (outlook: CellOutlook) => boolean,

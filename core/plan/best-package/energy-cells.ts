@@ -22,6 +22,11 @@
  *   So h(a) − h(b) ≤ ĝ_h·(a − b) with ĝ_h = price·u_h·(k_h·share_h(hi) − φ_h(hi)·r), and
  *   e(a) − e(b) ≤ ĝ_e·(a − b) with ĝ_e = price·(u_c·(k_c·share_c(hi) − φ_c(hi)·r) − β·r):
  *   signed slope bounds. Below the useful floor (thresholds.ts) no step saves air, so ĝ ≤ 0.
+ * Hour by hour (a home with `hourlyWeather`) the methods stay linear in c every hour, so each
+ * season's load-weighted mean flow is k·c too; the cooling season then has two means, one for
+ * the sensible load and one for the latent load (`coolingLatentCfm`), each combined with the
+ * fan as above, and e(c) carries both (on degree days the latent flow is the cooling flow):
+ * (i) and (ii) hold term by term, each term non-decreasing in its flow.
  * The natural infiltration is taken as k·c from the model's own flow at the top (linear up
  * to float rounding), and every entry carries a 1e-9 relative margin for float rounding.
  */
@@ -113,9 +118,21 @@ export function buildEnergyCells(
   const creditPerCfm50 = top.need.infiltrationCfm / topCfm50;
   const heatingPerCfm50 = top.infiltration.heatingCfm / topCfm50;
   const coolingPerCfm50 = top.infiltration.coolingCfm / topCfm50;
+  // Hour by hour the latent load has its own mean flow; on degree days it is the cooling flow.
+  const latentPerCfm50 =
+    (top.infiltration.coolingLatentCfm ?? top.infiltration.coolingCfm) / topCfm50;
   // Fuel and kWh per cfm of air: the energy of an air flow is proportional to it.
   const heatingUnitsPerCfm = model.energy({ heatingCfm: 1, coolingCfm: 0 }).heatingFuelUnits;
-  const coolingKwhPerCfm = model.energy({ heatingCfm: 0, coolingCfm: 1 }).coolingKwh;
+  const coolingKwhPerCfm = model.energy({
+    heatingCfm: 0,
+    coolingCfm: 1,
+    coolingLatentCfm: 0,
+  }).coolingKwh;
+  const latentKwhPerCfm = model.energy({
+    heatingCfm: 0,
+    coolingCfm: 0,
+    coolingLatentCfm: 1,
+  }).coolingKwh;
   const usefulFloor = usefulFloorCfm50(model);
 
   const fanAt = (cfm50: number) => Math.max(existingFanCfm, model.ventilation(cfm50).fanNeedCfm);
@@ -144,6 +161,7 @@ export function buildEnergyCells(
       {
         heatingCfm: combined(heatingPerCfm50 * lo, fanHigh),
         coolingCfm: combined(coolingPerCfm50 * lo, fanHigh),
+        coolingLatentCfm: combined(latentPerCfm50 * lo, fanHigh),
       },
       (fanHigh - existingFanCfm) * fanKwhPerCfm,
     );
@@ -158,13 +176,19 @@ export function buildEnergyCells(
         : (2 * creditPerCfm50 * creditPerCfm50 * lo) / requiredCfm;
     const heatingScale = heatingPrice * heatingUnitsPerCfm;
     const coolingScale = electricityPrice * coolingKwhPerCfm;
+    const latentScale = electricityPrice * latentKwhPerCfm;
     const fanScale = electricityPrice * fanKwhPerCfm;
     const heatingSlope = heatingScale * airSlope(heatingPerCfm50, hi, fanHigh, rise);
     const electricitySlope =
-      coolingScale * airSlope(coolingPerCfm50, hi, fanHigh, rise) - fanScale * rise;
+      coolingScale * airSlope(coolingPerCfm50, hi, fanHigh, rise) +
+      latentScale * airSlope(latentPerCfm50, hi, fanHigh, rise) -
+      fanScale * rise;
     const heatingMargin = TABLE_MARGIN * heatingScale * (heatingPerCfm50 + rise);
     const electricityMargin =
-      TABLE_MARGIN * (coolingScale * (coolingPerCfm50 + rise) + fanScale * rise);
+      TABLE_MARGIN *
+      (coolingScale * (coolingPerCfm50 + rise) +
+        latentScale * (latentPerCfm50 + rise) +
+        fanScale * rise);
     const saves = hi > usefulFloor;
     cells.heatingSlopeUsd[index] = saves
       ? heatingSlope + heatingMargin

@@ -13,15 +13,25 @@
  *   same or more, costs no more, has fewer measures and meets every constraint it meets, so
  *   it is never added ('sir' only when it costs nothing, since a cost can raise a negative
  *   SIR or turn a null one into a number);
- * - with every measure SIR ≥ 1, a measure whose largest PV below the node is under its cost;
- * - a subtree whose bound (bounds.ts, linear methods only) cannot beat the best package found,
- *   or can at most tie it while costing more or having more measures.
+ * - with every measure SIR ≥ 1, a measure whose largest PV below the node is under its cost
+ *   (energy-cells.ts's slope ceilings, or bounds-aim2.ts's box: the box of all the measures
+ *   that can still remove anything holds every state below the node);
+ * - a subtree whose bound (bounds.ts for the methods linear in CFM50, bounds-aim2.ts for aim2
+ *   on degree-day seasons) cannot beat the best package found, or can at most tie it while
+ *   costing more or having more measures.
  */
 import { totalCfm50, type HomeModel } from '../../home-model.ts';
 import type { PreparedMeasure } from '../../measures.ts';
 import type { PriceBook } from '../prices.ts';
 import { applyMeasure, stateAfter, type PlanState } from '../step.ts';
-import { subtreeMayWin, type BoundNode, type BoundSettings } from './bounds.ts';
+import {
+  largestStepPvAim2Usd,
+  stepSlopes,
+  subtreeBox,
+  subtreeMayWinAim2,
+  type Aim2Bound,
+} from './bounds-aim2.ts';
+import { subtreeMayWin, type BoundNode, type BoundSettings, type CellOutlook } from './bounds.ts';
 import { stepSlopeCeilings, type EnergyCells } from './energy-cells.ts';
 import { packageRanking, type PackageCents, type Ranking } from './ranking.ts';
 import { largestStepPvUsd, type LiveMeasure } from './remaining-measures.ts';
@@ -43,8 +53,10 @@ export interface SearchSetup {
   /** The health-and-safety measures' figures, cents. */
   health: { pvCents: number; annualCents: number; costCents: number };
   fanCents: number;
-  /** The bounds' energy table, or null for methods without proven bounds. */
+  /** The bounds' energy table (methods linear in CFM50), or null. */
   cells: EnergyCells | null;
+  /** The AIM-2 bound (aim2 on degree-day seasons), or null. */
+  aim2: Aim2Bound | null;
   fanThresholdCfm50: number;
 }
 
@@ -157,12 +169,42 @@ function candidatesAt(
       found.live.push(live);
     }
     found.indices.push(index);
+  }
+  if (setup.aim2 !== null && setup.everyMeasureSirAtLeastOne && found.live.length > 0) {
+    dropAim2Losers(setup.aim2, facts, node, found);
+  }
+  for (const index of found.indices) {
+    const fact = facts[index];
+    if (fact === undefined) continue;
     found.cheapestCents = Math.min(found.cheapestCents, fact.costCents);
     if (fact.costCents > 0) {
       found.cheapestPositiveUsd = Math.min(found.cheapestPositiveUsd, fact.costUsd);
     }
   }
   return found;
+}
+
+/** The every-SIR cut on AIM-2: drops the measures whose largest PV in the box is under cost. */
+function dropAim2Losers(
+  bound: Aim2Bound,
+  facts: readonly MeasureFacts[],
+  node: SearchNode,
+  found: Candidates,
+): void {
+  const box = subtreeBox(bound, node.state.leakage, found.live);
+  if (box === null) return;
+  const removable = found.live.reduce((total, live) => total + live.sizeCfm50, 0);
+  const bottom = Math.max(bound.model.floorCfm50, node.cfm50 - removable);
+  const slopes = stepSlopes(bound, box, node.cfm50, bottom);
+  const losers = new Set<number>();
+  for (const live of found.live) {
+    const fact = facts[live.index];
+    if (fact === undefined || fact.costCents === 0) continue;
+    if (largestStepPvAim2Usd(slopes, live) < fact.costUsd) losers.add(live.index);
+  }
+  if (losers.size === 0) return;
+  found.live = found.live.filter((live) => !losers.has(live.index));
+  found.indices = found.indices.filter((index) => !losers.has(index));
 }
 
 /** The exact search. */
@@ -185,7 +227,7 @@ export function searchPackages(setup: SearchSetup): SearchOutcome {
 
   /** Whether the bound leaves a package below the node that could win (linear methods). */
   const boundAllows = (node: SearchNode, found: Candidates): boolean => {
-    if (setup.cells === null) return true;
+    if (setup.cells === null && setup.aim2 === null) return true;
     const settings: BoundSettings = {
       objective,
       packageSirAtLeastOne: setup.packageSirAtLeastOne,
@@ -195,9 +237,14 @@ export function searchPackages(setup: SearchSetup): SearchOutcome {
       budgetLeftUsd: (setup.budgetCents - node.costCents) / 100,
       leastPositiveCostUsd: found.cheapestPositiveUsd,
     };
-    return subtreeMayWin(setup.cells, boundNodeOf(setup, node), found.live, settings, (outlook) =>
-      ranking.mayWin({ best, node, cheapestAddedCents: found.cheapestCents, outlook }),
-    );
+    const mayWin = (outlook: CellOutlook) =>
+      ranking.mayWin({ best, node, cheapestAddedCents: found.cheapestCents, outlook });
+    const boundNode = boundNodeOf(setup, node);
+    return setup.cells !== null
+      ? subtreeMayWin(setup.cells, boundNode, found.live, settings, mayWin)
+      : setup.aim2 !== null
+        ? subtreeMayWinAim2(setup.aim2, boundNode, found.live, settings, mayWin)
+        : true;
   };
 
   const childrenOf = (node: SearchNode): SearchNode[] => {

@@ -41,7 +41,12 @@ export function usefulFloorCfm50(model: HomeModel): number {
     const turning = (required / kappa) * Math.sqrt(1 - (k * k) / (2 * kappa * kappa));
     return Math.min(turning, binding);
   };
-  const slopes = [airflow.heatingCfm / total, airflow.coolingCfm / total].filter((k) => k > 0);
+  // Hour by hour the latent load has a mean flow of its own (linear in c too).
+  const slopes = [
+    airflow.heatingCfm / total,
+    airflow.coolingCfm / total,
+    (airflow.coolingLatentCfm ?? airflow.coolingCfm) / total,
+  ].filter((k) => k > 0);
   if (slopes.length === 0) return 0;
   const lowest = Math.min(...slopes.map(minimumOf));
   return Math.max(0, lowest * (1 - 1e-6) - 1e-6);

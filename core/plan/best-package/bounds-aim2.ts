@@ -1,0 +1,242 @@
+/**
+ * Whether any package below a node could still beat the best one found, for homes on the
+ * enhanced model (AIM-2) with degree-day seasons. bounds.ts does this for the methods linear
+ * in CFM50, where a state's energy is a function of its total; under AIM-2 it depends on where
+ * the leaks are, so the bound here works on the box of states the node's subtree can reach.
+ *
+ * Why it holds. A package below node X adds steps T; c_X is X's total, c_f the final one,
+ * L = c_X − c_f = Σ_T applied_j.
+ * (a, b) As in bounds.ts (remaining-measures.ts): measure j removes at most a_j (its removal
+ * at X) anywhere below X, all of them no more than is left at each location and above the
+ * floor, and T costs at least K(L). So every state below X has, at each location l, leakage in
+ * [lower_l, upper_l] with upper_l = X's leakage and lower_l = max(0, upper_l − Σ_{j at l} a_j):
+ * the box.
+ * (c) aim2-box.ts gives, for each season and over the whole box, G_lo ≤ q/c (the natural flow
+ * per CFM50) and D_l ≥ ∂q/∂L_l (the flow's fall per CFM50 removed at l, wherever it has a
+ * derivative). q is Lipschitz on the box (away from c = 0, where it tends to 0) and the
+ * branches of its min and |·| switch finitely often along a line, so along any segment inside
+ * the box in the direction of one location, q(start) − q(end) ≤ D_l·(its length).
+ * (d) The final flow: walking from X to f one location at a time stays in the box, so
+ * q(f) ≥ q(X) − Σ_l D_l·x_l with x_l ∈ [0, upper_l − lower_l], Σ x_l = L; the largest
+ * Σ D_l·x_l for L in [L0, L1] takes the largest D first (up to L1, and down to L0 if the
+ * positive D do not reach it). Also q(f) ≥ c_f·G_lo. The larger of the two, at least 0.
+ * (e) Energy. A year's heating dollars h = p_h·u_h·Φ_h and electricity e = p_e·(u_c·Φ_c +
+ * β·(F − E)), Φ = q + F (balanced), hypot(F, q) (unbalanced) or q (no fan), F(c) = max(E,
+ * 62.2 need(c)) non-increasing in c (energy-cells.ts). Φ rises with q and with F, so for c_f in
+ * [lo, hi]: h(f) ≥ p_h·u_h·Φ(q_lo, F(hi)) and e(f) ≥ p_e·(u_c·Φ(q_lo, F(hi)) + β·(F(hi) − E)).
+ * One step from s to s′ (c′ = c − a, both in the box and at or above the floor) saves at most
+ * a·ĝ_h,l and a·ĝ_e,l, the signed slopes of `stepSlopes` (aim2-steps.ts; the fan's part as in energy-cells.ts
+ * (ii), with the box's largest flow and least fan flow in the shares). Every state on these
+ * walks and steps has a total between c_f and c_X, so at or above the floor.
+ * (f) PV of T, before rounding, is at most each of: (1) as in bounds.ts (c), with hf_j =
+ * hf_min + δʰ_j and ef_j = ef_min + δᵉ_j over the live measures, hf_min·(h_X − h_f) +
+ * ef_min·(e_X − e_f) + Σ_T (δʰ_j·Δh_j + δᵉ_j·Δe_j), each δ·Δ ≤ applied_j·(δʰ_j·ĝ_h +
+ * δᵉ_j·ĝ_e) (δ ≥ 0); (2) Σ_T applied_j·(hf_j·ĝ_h + ef_j·ĝ_e). With applied_j ≤ a_j and Σ
+ * applied = L in [L0, L1], a sum Σ applied_j·rate_j is at most the fractional knapsack of the
+ * rates, largest first, up to L1 (the negative ones only as far as L0 needs them). A year's
+ * savings: (h + e)(X) − (h + e)(f), or Σ_T applied_j·(ĝ_h + ĝ_e). Rounding: a step's figure
+ * rounds to at most x + 0.005, and to at most 2·x⁺ (bounds.ts (e)), so add half a cent a live
+ * step to (1) and (2), or take twice the knapsack of the positive parts of the rates.
+ * (g) The fan (bounds.ts (d)), K at the top of a range of c_f and the budget, the package
+ * SIR ≥ 1 drop and the objectives' outlooks are those of bounds.ts. The walk judges the whole
+ * range of c_f from c_X down to the lowest total the measures can reach, and halves a range
+ * that may win (its upper half first) up to AIM2_HALVINGS times before it says so: a range is
+ * lost only when its own bounds lose, so every package is judged by a range that holds it.
+ * Where the box's bounds are not numbers (a formula out of its domain) or are infinite (the
+ * wind or stack factor reaching 0 within the box, where the flow's derivative is unbounded,
+ * e.g. a box in which every leak but the ceiling's may be sealed), nothing is cut at that
+ * node; deeper nodes have smaller boxes.
+ * Hour-by-hour homes on AIM-2 are not covered (their flow is a load-weighted mean over the
+ * hours, not these seasons' formula): they are searched without this bound.
+ */
+import { LEAK_LOCATIONS, type LeakLocation } from '../../schema.ts';
+import type { SeasonBox } from './aim2-box.ts';
+import {
+  ENERGY_MARGIN,
+  knapsackOf,
+  stepSlopes,
+  subtreeBox,
+  times,
+  type Aim2Bound,
+} from './aim2-steps.ts';
+import {
+  deadEndMayWin,
+  outlookMaker,
+  type BoundNode,
+  type BoundSettings,
+  type CellOutlook,
+} from './bounds.ts';
+import {
+  BOUND_MARGIN,
+  HALF_CENT_USD,
+  costCurve,
+  factorSpreads,
+  type LiveMeasure,
+} from './remaining-measures.ts';
+
+export {
+  aim2Bounded,
+  buildAim2Bound,
+  largestStepPvAim2Usd,
+  stepSlopes,
+  subtreeBox,
+  type Aim2Bound,
+  type StepSlopes,
+} from './aim2-steps.ts';
+
+/** How many times the walk may halve a range of final totals that may still win. */
+export const AIM2_HALVINGS = 14;
+
+/** The largest Σ D_l·x_l of (d) for a total in [least, most]. */
+function largestFall(
+  season: SeasonBox,
+  rooms: readonly { location: LeakLocation; room: number }[],
+  least: number,
+  most: number,
+): number {
+  const sorted = [...rooms].sort(
+    (a, b) => season.fallPerCfm50[b.location] - season.fallPerCfm50[a.location],
+  );
+  let taken = 0;
+  let fall = 0;
+  for (const { location, room } of sorted) {
+    const rate = season.fallPerCfm50[location];
+    const limit = rate > 0 ? most : least;
+    const part = Math.min(room, Math.max(0, limit - taken));
+    if (part <= 0) continue;
+    taken += part;
+    fall += rate * part;
+  }
+  return fall;
+}
+
+/**
+ * Whether some package strictly below an AIM-2 node might beat the best one found: false only
+ * when every cell its final total could be in is judged lost by `mayWin`.
+
+ */
+export function subtreeMayWinAim2(
+  bound: Aim2Bound,
+  node: BoundNode,
+  measures: readonly LiveMeasure[],
+  settings: BoundSettings,
+  mayWin: (outlook: CellOutlook) => boolean,
+): boolean {
+  if (measures.length === 0) return deadEndMayWin(node, settings, mayWin);
+  const box = subtreeBox(bound, node.leakage, measures);
+  if (box === null) return true;
+  const natural = bound.model.airflow(node.leakage);
+  const spreads = factorSpreads(measures);
+  const rounding = HALF_CENT_USD * measures.length;
+  const slack =
+    BOUND_MARGIN *
+    ((spreads.heatingMost + spreads.electricityMost + 1) *
+      (Math.abs(node.heatingUsd) + Math.abs(node.electricityUsd) + 1) +
+      Math.abs(node.openNpvUsd) +
+      Math.abs(node.annualUsd) +
+      node.energyPvUsd +
+      node.energyCostUsd +
+      settings.fanCostUsd +
+      measures.reduce((total, measure) => total + measure.costUsd, 0) +
+      1);
+  const outlookOf = outlookMaker(node, settings, slack);
+
+  // (e): each step's signed saving per CFM50 removed, by location.
+  const curve = costCurve(node.leakage, node.cfm50 - settings.floorCfm50, measures);
+  const bottom = node.cfm50 - curve.totalCfm50;
+  const slopes = stepSlopes(bound, box, node.cfm50, bottom);
+  const heatingSlope = (measure: LiveMeasure) => slopes.heating[measure.location];
+  const electricitySlope = (measure: LiveMeasure) => slopes.electricity[measure.location];
+  // A measure at the least factors has no excess, whatever its slopes.
+  const excessUpTo = knapsackOf(
+    measures,
+    (measure) =>
+      times(measure.factors.heating - spreads.heatingLeast, heatingSlope(measure)) +
+      times(measure.factors.electricity - spreads.electricityLeast, electricitySlope(measure)),
+  );
+  const pvUpTo = knapsackOf(
+    measures,
+    (measure) =>
+      times(measure.factors.heating, heatingSlope(measure)) +
+      times(measure.factors.electricity, electricitySlope(measure)),
+  );
+  const savingsUpTo = knapsackOf(
+    measures,
+    (measure) => heatingSlope(measure) + electricitySlope(measure),
+  );
+  const lower = { ...node.leakage };
+  for (const measure of measures) lower[measure.location] -= measure.sizeCfm50;
+  const rooms = LEAK_LOCATIONS.map((location) => ({
+    location,
+    room: node.leakage[location] - Math.max(0, lower[location]),
+  }));
+  const leastCostOf = (removed: number) => {
+    let cost = 0;
+    let start = 0;
+    curve.lengthsCfm50.forEach((length, segment) => {
+      cost +=
+        Math.min(length, Math.max(0, removed - start)) * (curve.ratesUsdPerCfm50[segment] ?? 0);
+      start += length;
+    });
+    return cost;
+  };
+  const budgetLeft = settings.budgetLeftUsd * (1 + BOUND_MARGIN) + 1e-9;
+  const model = bound.model;
+  const combine = (infiltrationCfm: number, fanCfm: number) =>
+    fanCfm === 0
+      ? infiltrationCfm
+      : bound.balanced
+        ? fanCfm + infiltrationCfm
+        : Math.hypot(fanCfm, infiltrationCfm);
+  const flowLow = (
+    season: SeasonBox | null,
+    atX: number,
+    lo: number,
+    least: number,
+    most: number,
+  ) =>
+    season === null
+      ? 0
+      : Math.max(0, lo * season.flowPerCfm50.lo, atX - largestFall(season, rooms, least, most));
+
+  /** Whether packages whose final total is in [lo, hi] may win, halving up to `depth` times. */
+  const mayWinIn = (lo: number, hi: number, depth: number): boolean => {
+    const least = node.cfm50 - hi;
+    const most = node.cfm50 - lo;
+    const leastCostUsd = leastCostOf(least);
+    if (leastCostUsd > budgetLeft) return false;
+    const fanCfm = Math.max(model.existingFanCfm, model.ventilation(hi).fanNeedCfm);
+    const heatingCfm = combine(flowLow(box.heating, natural.heatingCfm, lo, least, most), fanCfm);
+    const coolingCfm = combine(flowLow(box.cooling, natural.coolingCfm, lo, least, most), fanCfm);
+    const heatingLow = bound.heatingUsdPerCfm * heatingCfm * (1 - ENERGY_MARGIN);
+    const electricityLow =
+      (bound.coolingUsdPerCfm * coolingCfm + bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
+      (1 - ENERGY_MARGIN);
+    const terms = {
+      pvUsd: Math.min(
+        spreads.heatingLeast * (node.heatingUsd - heatingLow) +
+          spreads.electricityLeast * (node.electricityUsd - electricityLow) +
+          excessUpTo(least, most) +
+          rounding,
+        pvUpTo(least, most) + rounding,
+        2 * pvUpTo(0, most, true),
+      ),
+      savingsUsd: Math.min(
+        node.heatingUsd + node.electricityUsd - heatingLow - electricityLow + rounding,
+        savingsUpTo(least, most) + rounding,
+        2 * savingsUpTo(0, most, true),
+      ),
+      leastCostUsd,
+      fanPaid: node.fanNeeded || hi < settings.fanThresholdCfm50,
+    };
+    // A bound that is not a number proves nothing.
+    if (Number.isNaN(terms.pvUsd) || Number.isNaN(terms.savingsUsd)) return true;
+    const outlook = outlookOf(terms);
+    if (outlook !== null && Number.isNaN(outlook.score)) return true;
+    if (outlook === null || !mayWin(outlook)) return false;
+    if (depth === 0 || hi - lo <= 0) return true;
+    const middle = (lo + hi) / 2;
+    return mayWinIn(middle, hi, depth - 1) || mayWinIn(lo, middle, depth - 1);
+  };
+  return mayWinIn(bottom, node.cfm50, AIM2_HALVINGS);
+}

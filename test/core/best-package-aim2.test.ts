@@ -1,0 +1,417 @@
+/**
+ * The best package on the enhanced model (AIM-2) and on hour-by-hour homes, against brute
+ * force (test/_lib/package-brute-force.ts: every subset valued by a plain replay with the
+ * core's step, worth and ventilation functions), and each condition the AIM-2 bound rests on
+ * (core/plan/best-package/bounds-aim2.ts, aim2-box.ts, interval.ts) checked against the
+ * model's own airflow and energy (model.airflow, model.energyOf) at states drawn inside the
+ * boxes, and against finite differences: an independent computation, not the bound's.
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
+import { totalCfm50, type LeakageByLocation } from '../../core/home-model.ts';
+import { bestPackage } from '../../core/plan/best-package.ts';
+import { aim2BoxBounds } from '../../core/plan/best-package/aim2-box.ts';
+import { buildEnergyCells, cellLowCfm50 } from '../../core/plan/best-package/energy-cells.ts';
+import {
+  aim2Bounded,
+  buildAim2Bound,
+  stepSlopes,
+  subtreeBox,
+} from '../../core/plan/best-package/bounds-aim2.ts';
+import type { LiveMeasure } from '../../core/plan/best-package/remaining-measures.ts';
+import { buildPriceBook } from '../../core/plan/prices.ts';
+import { LEAK_LOCATIONS, type HomeFileInput, type LeakLocation } from '../../core/schema.ts';
+import type { WeatherYear } from '../../core/weather/hourly-airflow.ts';
+import { homeArbitrary } from '../_lib/home-arbitrary.ts';
+import {
+  bestByBruteForce,
+  everyPackage,
+  measuresInPlanOrder,
+  type BruteForceQuery,
+} from '../_lib/package-brute-force.ts';
+
+const SEED = 20261202;
+const HOMES = 200;
+
+/** Generated AIM-2 homes of 1–14 measures, most of them energy measures (as in best-package.test.ts). */
+function generatedHomes(
+  methods: readonly HomeFileInput['infiltrationMethod'][],
+  count: number,
+  seed: number,
+  most = 14,
+) {
+  return fc.sample(
+    fc
+      .noBias(fc.integer({ min: 1, max: most }))
+      .chain((measures) =>
+        fc.record({
+          home: homeArbitrary({ measureCount: { min: measures, max: measures }, methods }),
+          kinds: fc.array(
+            fc.constantFrom('energy', 'energy', 'energy', 'energy', 'safety', 'declined'),
+            {
+              minLength: measures,
+              maxLength: measures,
+            },
+          ),
+          allEnergy: fc.boolean(),
+          budgetFraction: fc.constantFrom(0, 0.05, 0.2, 0.35, 0.5, 0.75, 1, 1.5),
+          kind: fc.integer({ min: 0, max: 3 }),
+        }),
+      )
+      .map(({ home, kinds, allEnergy, budgetFraction, kind }) => {
+        home.measures.forEach((measure, index) => {
+          const role = allEnergy ? 'energy' : (kinds[index] ?? 'energy');
+          measure.status = role === 'declined' ? 'declined' : 'planned';
+          measure.cost = { ...measure.cost, healthAndSafety: role === 'safety' };
+        });
+        return { home, budgetFraction, kind };
+      }),
+    { seed, numRuns: count },
+  );
+}
+
+/** The four queries of best-package.test.ts: a budget from the energy cost, constraints by kind. */
+function queriesFor(
+  evaluation: Evaluation,
+  budgetFraction: number,
+  kind: number,
+): BruteForceQuery[] {
+  const energyCost = measuresInPlanOrder(evaluation).energy.reduce(
+    (total, measure) => total + measure.cost.totalUsdFloat,
+    0,
+  );
+  const budgetUsd = Math.round(energyCost * budgetFraction * 100) / 100;
+  return [
+    { budgetUsd, objective: 'npv', everyMeasureSirAtLeastOne: false, packageSirAtLeastOne: false },
+    {
+      budgetUsd: kind === 0 ? Infinity : budgetUsd,
+      objective: 'savings',
+      everyMeasureSirAtLeastOne: false,
+      packageSirAtLeastOne: true,
+    },
+    {
+      budgetUsd,
+      objective: kind === 1 ? 'sir' : 'npv',
+      everyMeasureSirAtLeastOne: true,
+      packageSirAtLeastOne: kind === 2,
+    },
+    {
+      budgetUsd,
+      objective: 'savings',
+      everyMeasureSirAtLeastOne: true,
+      packageSirAtLeastOne: false,
+    },
+  ];
+}
+
+/** bestPackage against brute force on one evaluation; returns how many queries were compared. */
+function compareWithBruteForce(evaluation: Evaluation, queries: BruteForceQuery[], label: string) {
+  const packages = everyPackage(evaluation);
+  for (const query of queries) {
+    const expected = bestByBruteForce(packages, query);
+    const found = bestPackage(evaluation, { ...query });
+    const context = `${label}, ${JSON.stringify(query)}`;
+    expect(found.measureIds, context).toEqual(expected.measureIds);
+    expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
+    expect(found.annualSavingsUsd.toFixed(2), context).toBe(expected.annualSavingsUsd.toFixed(2));
+    expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
+    expect(found.sir?.toString() ?? null, context).toBe(expected.sir?.toString() ?? null);
+    expect(found.budgetCostUsd.lte(query.budgetUsd), context).toBe(true);
+  }
+  return { compared: queries.length, count: measuresInPlanOrder(evaluation).energy.length };
+}
+
+describe('best package on AIM-2 homes: equals brute force', () => {
+  it(`on ${HOMES} generated AIM-2 homes of up to 14 measures, four queries each`, () => {
+    let compared = 0;
+    let cut = 0;
+    const counts: number[] = [];
+    for (const { home, budgetFraction, kind } of generatedHomes(['aim2'], HOMES, SEED)) {
+      const evaluation = evaluateHome(home);
+      expect(aim2Bounded(evaluation.model)).toBe(true);
+      const queries = queriesFor(evaluation, budgetFraction, kind);
+      const result = compareWithBruteForce(evaluation, queries, home.name);
+      compared += result.compared;
+      counts.push(result.count);
+      const found = bestPackage(evaluation, { budgetUsd: Infinity });
+      expect(found.boundsUsed).toBe(true);
+      if (found.nodesVisited < 2 ** result.count) cut += 1;
+    }
+    expect(compared).toBe(4 * HOMES);
+    expect(Math.max(...counts)).toBe(14);
+    expect(counts.filter((count) => count >= 12).length).toBeGreaterThanOrEqual(15);
+    // The bound does cut: most homes are searched below 2^n.
+    expect(cut).toBeGreaterThan(HOMES / 2);
+  }, 300_000);
+});
+
+/** A seeded uniform [0, 1) generator (an LCG: the constants of Numerical Recipes). */
+function uniformFrom(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (Math.imul(state, 1_664_525) + 1_013_904_223) >>> 0;
+    return state / 2 ** 32;
+  };
+}
+
+/** A random box below a state: each location lowered by up to `depth` of what it holds. */
+function boxBelow(leakage: LeakageByLocation, next: () => number, depth: number) {
+  const lower = { ...leakage };
+  for (const location of LEAK_LOCATIONS) {
+    if (next() < 0.6) lower[location] = leakage[location] * (1 - depth * next());
+  }
+  return lower;
+}
+
+/** A state inside a box. */
+function stateIn(
+  lower: LeakageByLocation,
+  upper: LeakageByLocation,
+  next: () => number,
+): Record<LeakLocation, number> {
+  const state = { ...upper };
+  for (const location of LEAK_LOCATIONS) {
+    state[location] = lower[location] + (upper[location] - lower[location]) * next();
+  }
+  return state;
+}
+
+describe('the AIM-2 bound: the conditions it rests on', () => {
+  const homes = generatedHomes(['aim2'], 120, SEED + 1, 8);
+
+  it('the box bounds hold the model’s flow per CFM50 and its fall per CFM50 at each location', () => {
+    // (c) of bounds-aim2.ts: for states s in the box and a step of length a at l with s − a·e_l
+    // in the box, q(s)/c ∈ [G_lo, G_hi] and q(s) − q(s − a·e_l) ≤ a·D_l, by model.airflow.
+    const next = uniformFrom(SEED + 2);
+    let checked = 0;
+    let finite = 0;
+    for (const { home } of homes) {
+      const { model } = evaluateHome(home);
+      const bounds = aim2BoxBounds(model);
+      for (let draw = 0; draw < 6; draw += 1) {
+        const upper = model.testIn;
+        const lower = boxBelow(upper, next, draw < 3 ? 0.1 : 0.6);
+        const box = bounds({ lower, upper, floorCfm50: model.floorCfm50 });
+        // Where the exact point is given, a bound must be given too.
+        if (draw === 0) {
+          expect(bounds({ lower: upper, upper, floorCfm50: 0 })).not.toBeNull();
+        }
+        if (box === null) continue;
+        for (let sample = 0; sample < 5; sample += 1) {
+          const state = stateIn(lower, upper, next);
+          const total = totalCfm50(state);
+          // The search never goes below the leakage floor, and the box's shares rely on it.
+          if (total < model.floorCfm50) continue;
+          const flow = model.airflow(state);
+          const seasons = [
+            { cfm: flow.heatingCfm, season: box.heating },
+            { cfm: flow.coolingCfm, season: box.cooling },
+          ];
+          for (const { cfm, season } of seasons) {
+            if (season === null) {
+              expect(cfm).toBe(0);
+              continue;
+            }
+            const tolerance = 1e-9 * (1 + cfm);
+            expect(cfm).toBeGreaterThanOrEqual(total * season.flowPerCfm50.lo - tolerance);
+            expect(cfm).toBeLessThanOrEqual(total * season.flowPerCfm50.hi + tolerance);
+          }
+          for (const location of LEAK_LOCATIONS) {
+            const room = Math.min(state[location] - lower[location], total - model.floorCfm50);
+            if (room <= 0) continue;
+            const step = room * next();
+            const after = model.airflow({ ...state, [location]: state[location] - step });
+            const falls = [
+              { fall: flow.heatingCfm - after.heatingCfm, season: box.heating },
+              { fall: flow.coolingCfm - after.coolingCfm, season: box.cooling },
+            ];
+            for (const { fall, season } of falls) {
+              if (season === null) continue;
+              const bound = season.fallPerCfm50[location];
+              if (Number.isFinite(bound)) finite += 1;
+              expect(fall).toBeLessThanOrEqual(step * bound + 1e-9 * (1 + Math.abs(fall)));
+            }
+            checked += 1;
+          }
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(2000);
+    expect(finite).toBeGreaterThan(checked);
+  });
+
+  it('a step saves no more heating or electricity dollars than its slope bound (the 62.2 fan in)', () => {
+    // (e) of bounds-aim2.ts, with model.energyOf (natural flow, 62.2 fan, its power): for
+    // states s in a node's box and s′ = s − a·e_l (a within the room), a year's heating and
+    // electricity dollars fall by at most a·slope.
+    const next = uniformFrom(SEED + 3);
+    let checked = 0;
+    let negative = 0;
+    for (const { home } of homes) {
+      const evaluation = evaluateHome(home);
+      const { model } = evaluation;
+      const prices = buildPriceBook(evaluation.home);
+      const bound = buildAim2Bound(model, prices);
+      const dollars = (leakage: LeakageByLocation) => {
+        const energy = model.energyOf(leakage);
+        return {
+          heating: energy.heatingFuelUnits * prices.heating.usdPerUnitFloat,
+          electricity:
+            (energy.coolingKwh + energy.ventilationFanKwh) *
+            (prices.electricity?.usdPerUnitFloat ?? 0),
+        };
+      };
+      const upper = model.testIn;
+      const live: LiveMeasure[] = measuresInPlanOrder(evaluation).energy.map((measure, index) => ({
+        index,
+        location: measure.location,
+        sizeCfm50: Math.min(Math.max(0, measure.estimateCfm50.likely), upper[measure.location]),
+        costUsd: measure.cost.totalUsdFloat,
+        factors: { heating: 1, electricity: 1 },
+      }));
+      const box = subtreeBox(bound, upper, live);
+      if (box === null) continue;
+      const lower = { ...upper };
+      for (const measure of live) lower[measure.location] -= measure.sizeCfm50;
+      for (const location of LEAK_LOCATIONS) lower[location] = Math.max(0, lower[location]);
+      const bottom = Math.max(model.floorCfm50, totalCfm50(lower));
+      const slopes = stepSlopes(bound, box, model.testInCfm50, bottom);
+      for (let sample = 0; sample < 8; sample += 1) {
+        const state = stateIn(lower, upper, next);
+        if (totalCfm50(state) < bottom) continue;
+        const before = dollars(state);
+        for (const location of LEAK_LOCATIONS) {
+          const room = Math.min(state[location] - lower[location], totalCfm50(state) - bottom);
+          if (room <= 0) continue;
+          const step = room * next();
+          const after = dollars({ ...state, [location]: state[location] - step });
+          const tolerance = 1e-9 * (1 + before.heating + before.electricity);
+          expect(before.heating - after.heating).toBeLessThanOrEqual(
+            step * slopes.heating[location] + tolerance,
+          );
+          expect(before.electricity - after.electricity).toBeLessThanOrEqual(
+            step * slopes.electricity[location] + tolerance,
+          );
+          if (slopes.heating[location] + slopes.electricity[location] < 0) negative += 1;
+          checked += 1;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(1000);
+    // Some homes' fans make steps cost more than they save, and the slopes say so.
+    expect(negative).toBeGreaterThan(0);
+  });
+
+  it('hour-by-hour AIM-2 homes are not covered by the AIM-2 bound', () => {
+    const [first] = generatedHomes(['aim2'], 1, SEED + 4, 6);
+    if (!first) throw new Error('no home');
+    const evaluation = evaluateHome(
+      { ...first.home, hourlyWeather: {} },
+      { weather: swingingYear() },
+    );
+    expect(evaluation.model.climateBasis.kind).toBe('hourly');
+    expect(aim2Bounded(evaluation.model)).toBe(false);
+    expect(bestPackage(evaluation, { budgetUsd: Infinity }).boundsUsed).toBe(false);
+  });
+});
+
+const HOURS = 8760;
+
+/** A year that swings by season and by day (invented for the test, not a place's weather). */
+function swingingYear(): WeatherYear {
+  return {
+    name: 'Swinging test year',
+    elevationFt: 0,
+    outdoorF: Float64Array.from(
+      { length: HOURS },
+      (_, hour) =>
+        50 - 28 * Math.cos((2 * Math.PI * hour) / HOURS) + 9 * Math.sin((2 * Math.PI * hour) / 24),
+    ),
+    windMph: Float64Array.from({ length: HOURS }, (_, hour) => 6 + 4 * Math.sin(hour / 37)),
+    humidityRatio: Float64Array.from(
+      { length: HOURS },
+      (_, hour) => 0.008 - 0.005 * Math.cos((2 * Math.PI * hour) / HOURS),
+    ),
+  };
+}
+
+describe('the energy cells of hour-by-hour homes', () => {
+  it('bound the model’s own energy from below and its fall per CFM50 from above', () => {
+    // energy-cells.ts (i) and (ii) with the latent flow of its own, against model.energyOf at
+    // states inside each cell split as the test-in leakage is.
+    const weather = swingingYear();
+    const next = uniformFrom(SEED + 6);
+    let checked = 0;
+    for (const method of ['nFactor', 'lblBasic', 'ashrae622'] as const) {
+      for (const { home } of generatedHomes([method], 8, SEED + 7, 4)) {
+        const evaluation = evaluateHome({ ...home, hourlyWeather: {} }, { weather });
+        const { model } = evaluation;
+        const prices = buildPriceBook(evaluation.home);
+        const cells = buildEnergyCells(model, prices, model.testInCfm50);
+        const dollars = (cfm50: number) => {
+          const scale = cfm50 / model.testInCfm50;
+          const leakage = Object.fromEntries(
+            LEAK_LOCATIONS.map((location) => [location, model.testIn[location] * scale]),
+          ) as LeakageByLocation;
+          const energy = model.energyOf(leakage);
+          return {
+            heating: energy.heatingFuelUnits * prices.heating.usdPerUnitFloat,
+            electricity:
+              (energy.coolingKwh + energy.ventilationFanKwh) *
+              (prices.electricity?.usdPerUnitFloat ?? 0),
+          };
+        };
+        for (let draw = 0; draw < 20; draw += 1) {
+          const index = Math.floor(next() * cells.count);
+          const lo = cellLowCfm50(cells, index);
+          const upper = lo + cells.widthCfm50 * (0.01 + 0.99 * next());
+          const lower = lo + (upper - lo) * next() * 0.99;
+          const atUpper = dollars(upper);
+          const atLower = dollars(lower);
+          const tolerance = 1e-9 * (1 + atUpper.heating + atUpper.electricity);
+          expect(atLower.heating).toBeGreaterThanOrEqual(
+            (cells.heatingLowUsd[index] ?? 0) - tolerance,
+          );
+          expect(atLower.electricity).toBeGreaterThanOrEqual(
+            (cells.electricityLowUsd[index] ?? 0) - tolerance,
+          );
+          expect(atUpper.heating - atLower.heating).toBeLessThanOrEqual(
+            (cells.heatingSlopeUsd[index] ?? 0) * (upper - lower) + tolerance,
+          );
+          expect(atUpper.electricity - atLower.electricity).toBeLessThanOrEqual(
+            (cells.electricitySlopeUsd[index] ?? 0) * (upper - lower) + tolerance,
+          );
+          checked += 1;
+        }
+      }
+    }
+    expect(checked).toBe(3 * 8 * 20);
+  });
+});
+
+describe('best package on hour-by-hour homes: equals brute force', () => {
+  it('for the methods linear in CFM50 (bounded) and for AIM-2 (searched without a bound)', () => {
+    // Hour by hour, nFactor, lblBasic and ashrae622 stay linear in CFM50 every hour, so the
+    // energy table of energy-cells.ts still applies; brute force is the check.
+    const weather = swingingYear();
+    let compared = 0;
+    const methods = new Set<string>();
+    for (const method of ['nFactor', 'lblBasic', 'ashrae622', 'aim2'] as const) {
+      for (const { home, budgetFraction, kind } of generatedHomes([method], 8, SEED + 5, 10)) {
+        const evaluation = evaluateHome({ ...home, hourlyWeather: {} }, { weather });
+        expect(evaluation.model.climateBasis.kind).toBe('hourly');
+        const found = bestPackage(evaluation, { budgetUsd: Infinity });
+        expect(found.boundsUsed).toBe(method !== 'aim2');
+        compared += compareWithBruteForce(
+          evaluation,
+          queriesFor(evaluation, budgetFraction, kind),
+          `${method} hourly`,
+        ).compared;
+        methods.add(method);
+      }
+    }
+    expect(compared).toBe(4 * 8 * 4);
+    expect(methods.size).toBe(4);
+  }, 120_000);
+});
