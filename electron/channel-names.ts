@@ -42,6 +42,7 @@ export const CHANNEL_NAMES = [
   'settings.update',
   'homeFile.import',
   'homeFile.export',
+  'homeFile.exportBundle',
   'homeFile.evaluate',
   'portfolio.summary',
   'portfolio.evaluate',

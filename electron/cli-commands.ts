@@ -71,6 +71,8 @@ export interface Parsed {
   out: string | undefined;
   /** workorder: the PDF file to write. */
   pdf: string | undefined;
+  /** export: the home file with its photos (a bundle). */
+  photos: boolean;
   /** portfolio: a program-wide bias's ± fraction, as typed. */
   bias: string | undefined;
   /** weather: the degree days' base, °F, as typed; evaluate: a weather file to plan hour by hour on. */
@@ -255,7 +257,9 @@ export async function runExport(parsed: Parsed, output: CliOutput): Promise<numb
   const homeId = homeIdOf(idText);
   if (homeId === null) throw new UsageError(`HOME_ID must be a number, got "${idText}"`);
   const homeFile = await withProject(parsed, (context) =>
-    ask(context, 'homeFile.export', { id: homeId }),
+    parsed.photos
+      ? ask(context, 'homeFile.exportBundle', { id: homeId })
+      : ask(context, 'homeFile.export', { id: homeId }),
   );
   await writeFile(path, `${JSON.stringify(homeFile, null, 2)}\n`, 'utf8');
   output.out(`wrote ${path}`);

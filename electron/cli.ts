@@ -49,11 +49,13 @@ Usage:
       [--weather FILE]                      a home file planned hour by hour on an EPW or
                                             TMY3 year (a stored home uses its climate's)
   sealwork list [--json]                    the stored homes
-  sealwork import FILE [--json]             store a home file as a new home; prints its id
+  sealwork import FILE [--json]             store a home file (or one bundled with its photos)
+                                            as a new home; prints its id
   sealwork import FILE.csv [--json] [--dry-run]
                                             store a portfolio CSV, a home a row, all or none;
                                             prints how many (--json: their ids)
-  sealwork export HOME_ID FILE              write a stored home as a home file
+  sealwork export HOME_ID FILE [--photos]   write a stored home as a home file (--photos:
+                                            bundled with its photos)
   sealwork export-csv FILE [--results]      write every home as a portfolio CSV, or (--results)
                                             a row of each home's leakage and plan figures
   sealwork portfolio [--json]               the summary: homes by fuel, town and decade built,
@@ -111,6 +113,7 @@ function parse(argv: readonly string[]): Parsed {
       'base-f': { type: 'string' },
       weather: { type: 'string' },
       pdf: { type: 'string' },
+      photos: { type: 'boolean' },
       out: { type: 'string' },
       draws: { type: 'string' },
       seed: { type: 'string' },
@@ -145,6 +148,7 @@ function parse(argv: readonly string[]): Parsed {
     },
     out: values.out,
     pdf: values.pdf,
+    photos: values.photos === true,
   };
 }
 

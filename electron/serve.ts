@@ -21,13 +21,16 @@ export const MAX_BODY_BYTES = 2 * 1024 * 1024;
 /**
  * The largest body of a photos.add request, bytes: the largest photo the store takes as base64
  * (15 MiB of image, 20 MiB of text) with the usual limit again for the rest (caption, JSON).
- * Only that channel gets it; every other keeps {@link MAX_BODY_BYTES}.
+ * Only that channel gets it, and homeFile.import (a home file may come bundled with a photo);
+ * every other keeps {@link MAX_BODY_BYTES}.
  */
 export const MAX_PHOTO_BODY_BYTES = MAX_PHOTO_BASE64_CHARS + MAX_BODY_BYTES;
 
 /** The body limit of a channel, bytes. */
 export function bodyLimitOf(name: ChannelName): number {
-  return name === 'photos.add' ? MAX_PHOTO_BODY_BYTES : MAX_BODY_BYTES;
+  return name === 'photos.add' || name === 'homeFile.import'
+    ? MAX_PHOTO_BODY_BYTES
+    : MAX_BODY_BYTES;
 }
 
 export const TOKEN_HEADER = 'x-sealwork-token';

@@ -21,6 +21,12 @@ import {
   type CsvProblem,
 } from '../../db/csv-import.ts';
 import { exportHomeFile, importHomeFile } from '../../db/home-file.ts';
+import {
+  exportHomeFileWithAttachments,
+  HOME_BUNDLE_FORMAT,
+  importHomeFileWithAttachments,
+  type HomeFileBundle,
+} from '../../db/home-file-bundle.ts';
 import { portfolioSummary, type PortfolioSummary } from '../../db/portfolio.ts';
 import { effectiveLibrary } from '../../db/repositories/library.ts';
 import type { MeasureType } from '../../core/measure-library.ts';
@@ -60,6 +66,15 @@ function weatherYearOfText(text: string) {
   }
 }
 
+/** Whether an imported file is a bundle of a home file and its photos (by its format). */
+function isBundle(file: unknown): boolean {
+  return (
+    typeof file === 'object' &&
+    file !== null &&
+    (file as { format?: unknown }).format === HOME_BUNDLE_FORMAT
+  );
+}
+
 /** A home file asked to be planned hour by hour: `hourlyWeather` added when it has none. */
 function withHourlyWeather(file: unknown): unknown {
   if (typeof file !== 'object' || file === null || Array.isArray(file)) return file;
@@ -95,12 +110,24 @@ const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'expected a date as YYYY
 
 /** The `homeFile.*` and `portfolio.*` channels. */
 export const fileAndPortfolioChannels = {
+  // A home file, or a bundle of one with its photos (`sealwork-home-bundle/1`).
   'homeFile.import': channel({
     request: z.strictObject({ file: z.unknown() }),
     response: byId,
     handle: ({ store }, request) => ({
-      id: store.write((write) => importHomeFile(write, request.file)),
+      id: store.write((write) =>
+        isBundle(request.file)
+          ? importHomeFileWithAttachments(write, request.file)
+          : importHomeFile(write, request.file),
+      ),
     }),
+  }),
+  // A stored home as a home file with its photos, each as base64 with its SHA-256.
+  'homeFile.exportBundle': channel({
+    request: byId,
+    response: recordOf<HomeFileBundle>(),
+    handle: ({ store }, request) =>
+      store.read((read) => exportHomeFileWithAttachments(read, request.id)),
   }),
   'homeFile.export': channel({
     request: byId,

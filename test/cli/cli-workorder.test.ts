@@ -9,10 +9,12 @@
  * summed here; bad input exits 2 naming the argument with nothing on stdout (DESIGN.md).
  */
 import { spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { importHomeFile } from '../../db/home-file.ts';
 import { changeJobStatus } from '../../db/repositories/jobs.ts';
-import { addPhoto } from '../../db/repositories/photos.ts';
+import { addPhoto, getPhoto, listPhotos } from '../../db/repositories/photos.ts';
 import { openStore } from '../../db/store.ts';
 import { validBaseHome } from '../_lib/base-home.ts';
 import { makeTempFolder, runCli, type TempFolder } from '../_lib/cli-harness.ts';
@@ -143,6 +145,33 @@ describe('sealwork workorder', () => {
     for (const measure of json.order.measures) expect(text.stdout).toContain(measure.name);
     expect(text.stdout).toMatch(/local codes/i);
     expect(text.stdout).toMatch(/page 1 of \d+/);
+  });
+
+  it('export --photos bundles the home with its photos; import stores them byte for byte', async () => {
+    const bundlePath = `${folder.path}/bundle.json`;
+    const exported = await runCli(['export', String(homeId), bundlePath, '--db', db, '--photos']);
+    expect(exported.exitCode, exported.stderr).toBe(0);
+    const bundle = JSON.parse(readFileSync(bundlePath, 'utf8')) as {
+      format: string;
+      photos: { base64: string; sha256: string; measureId?: string }[];
+    };
+    expect(bundle.format).toBe('sealwork-home-bundle/1');
+    const original = pngImage(5, 5);
+    const sha256 = createHash('sha256').update(original).digest('hex');
+    expect(bundle.photos.map((photo) => [photo.measureId, photo.sha256])).toEqual([['m1', sha256]]);
+    const other = `${folder.path}/other.db`;
+    const imported = await runCli(['import', bundlePath, '--db', other, '--json']);
+    expect(imported.exitCode, imported.stderr).toBe(0);
+    const { id } = JSON.parse(imported.stdout) as { id: number };
+    const store = openStore(other);
+    try {
+      const photos = store.read((read) => listPhotos(read, id));
+      expect(photos).toHaveLength(1);
+      const stored = store.read((read) => getPhoto(read, photos[0]?.id ?? 0));
+      expect(Buffer.compare(Buffer.from(stored.bytes), original)).toBe(0);
+    } finally {
+      store.close();
+    }
   });
 
   it('exits 2 naming the argument for bad input, with nothing on stdout', async () => {

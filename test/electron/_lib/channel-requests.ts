@@ -226,6 +226,7 @@ export function validRequests(ids: KnownIds): ValidRequests {
     },
     'homeFile.import': { file: baseHomeFile() },
     'homeFile.export': { id: ids.homeId },
+    'homeFile.exportBundle': { id: ids.homeId },
     'homeFile.evaluate': { file: baseHomeFile() },
     'portfolio.summary': {},
     'portfolio.evaluate': { filter: { heatingFuel: 'naturalGas' } },
