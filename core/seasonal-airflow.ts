@@ -28,10 +28,23 @@ function totalOf(leakage: LeakageByLocation): number {
   return LEAK_LOCATIONS.reduce((total, location) => total + leakage[location], 0);
 }
 
-function requireValue<T>(value: T | undefined, path: string, method: string): T {
+/** A climate or home field a method needs, or an InputError naming it. */
+export function requireMethodInput<T>(value: T | undefined, path: string, method: string): T {
   if (value === undefined)
     throw InputError.at(path, `is required for infiltrationMethod "${method}"`);
   return value;
+}
+
+/** The N-factor of a home: its override, else the LBL table's for its zone, stories, shelter. */
+export function nFactorOfHome(home: HomeFile): number {
+  return (
+    home.nFactorOverride ??
+    lblNFactor({
+      zone: requireMethodInput(home.climate.nFactorZone, 'climate.nFactorZone', 'nFactor'),
+      stories: home.house.stories,
+      shielding: shieldingForShelterClass(home.house.shelterClass),
+    })
+  );
 }
 
 /**
@@ -52,20 +65,18 @@ export function seasonalAirflowMethod(
 
   switch (method) {
     case 'nFactor': {
-      const nFactor =
-        home.nFactorOverride ??
-        lblNFactor({
-          zone: requireValue(climate.nFactorZone, 'climate.nFactorZone', method),
-          stories: house.stories,
-          shielding: shieldingForShelterClass(house.shelterClass),
-        });
+      const nFactor = nFactorOfHome(home);
       return (leakage) => {
         const { cfmNatural } = nFactorInfiltration({ cfm50: totalOf(leakage), volumeFt3, nFactor });
         return { heatingCfm: cfmNatural, coolingCfm: hasCooling ? cfmNatural : 0 };
       };
     }
     case 'lblBasic': {
-      const heatingSeason = requireValue(climate.heatingSeason, 'climate.heatingSeason', method);
+      const heatingSeason = requireMethodInput(
+        climate.heatingSeason,
+        'climate.heatingSeason',
+        method,
+      );
       const coolingSeason = climate.coolingSeason;
       const flowAt = (ela: number, season: Season) =>
         lblBasicInfiltration({
@@ -85,7 +96,11 @@ export function seasonalAirflowMethod(
       };
     }
     case 'aim2': {
-      const heatingSeason = requireValue(climate.heatingSeason, 'climate.heatingSeason', method);
+      const heatingSeason = requireMethodInput(
+        climate.heatingSeason,
+        'climate.heatingSeason',
+        method,
+      );
       const coolingSeason = climate.coolingSeason;
       const sitePressurePa = standardPressurePa(climate.elevationFt * METERS_PER_FOOT);
       const flowAt = (leakage: LeakageByLocation, season: Season, kind: 'heating' | 'cooling') => {
@@ -124,7 +139,7 @@ export function seasonalAirflowMethod(
       });
     }
     case 'ashrae622': {
-      const wsf = requireValue(climate.wsf, 'climate.wsf', method);
+      const wsf = requireMethodInput(climate.wsf, 'climate.wsf', method);
       return (leakage) => {
         const cfm = effectiveAnnualInfiltrationCfm({
           cfm50: totalOf(leakage),

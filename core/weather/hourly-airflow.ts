@@ -33,15 +33,10 @@
  * enhanced models); Walker & Wilson 1998, HVAC&R Research 4(2), LBNL-42361 (AIM-2); ASHRAE
  * HoF, "Energy Estimating and Modeling Methods" (degree days, balance point; from memory).
  */
-import { InputError } from '../errors.ts';
 import type { LeakageByLocation } from '../home-model.ts';
 import { effectiveAnnualInfiltrationCfm } from '../infiltration/ashrae-622.ts';
 import { lblStackCoefficientIp, lblWindCoefficientIp } from '../infiltration/lbl-basic.ts';
-import {
-  lblNFactor,
-  nFactorInfiltration,
-  shieldingForShelterClass,
-} from '../infiltration/n-factor.ts';
+import { nFactorInfiltration } from '../infiltration/n-factor.ts';
 import { elaIn2 } from '../leakage.ts';
 import type { HomeFile } from '../schema.ts';
 import { aim2Hourly } from './aim2-hourly.ts';
@@ -64,14 +59,9 @@ export {
   INDOOR_COOLING_RELATIVE_HUMIDITY_PCT,
   weatherYearOf,
 } from './weather-year.ts';
+import { nFactorOfHome, requireMethodInput } from '../seasonal-airflow.ts';
 
 export type { HourlyAirflowCfm } from './hourly-flows.ts';
-
-function requireValue<T>(value: T | undefined, path: string, method: string): T {
-  if (value === undefined)
-    throw InputError.at(path, `is required for infiltrationMethod "${method}"`);
-  return value;
-}
 
 /**
  * The chosen infiltration method, hour by hour over a weather year, as a function of the
@@ -110,13 +100,7 @@ export function hourlyAirflowMethod(
 
   switch (method) {
     case 'nFactor': {
-      const nFactor =
-        home.nFactorOverride ??
-        lblNFactor({
-          zone: requireValue(climate.nFactorZone, 'climate.nFactorZone', method),
-          stories: house.stories,
-          shielding: shieldingForShelterClass(house.shelterClass),
-        });
+      const nFactor = nFactorOfHome(home);
       return (leakage) => {
         const { cfmNatural } = nFactorInfiltration({
           cfm50: totalCfm50Of(leakage),
@@ -128,7 +112,7 @@ export function hourlyAirflowMethod(
       };
     }
     case 'ashrae622': {
-      const wsf = requireValue(climate.wsf, 'climate.wsf', method);
+      const wsf = requireMethodInput(climate.wsf, 'climate.wsf', method);
       return (leakage) => {
         const cfm = effectiveAnnualInfiltrationCfm({
           cfm50: totalCfm50Of(leakage),

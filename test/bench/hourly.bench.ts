@@ -11,17 +11,15 @@ import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { performance } from 'node:perf_hooks';
 import { evaluateHome } from '../../core/evaluate.ts';
-import { MEASURE_LIBRARY } from '../../core/measure-library.ts';
 import type { HomeFileInput, InfiltrationMethod } from '../../core/schema.ts';
 import { climateFromWeather, detectAndParseWeather, weatherYearOf } from '../../core/weather.ts';
 import { DEMO_HOMES } from '../../db/demo/alder-creek.ts';
 import { tmy3Year } from '../_lib/weather-files.ts';
+import { median, withLibraryMeasures } from './_lib/bench-homes.ts';
 
 const TARGET_MS = 50;
 const RUNS = 15;
 const MEASURES = 20;
-/** An invented labour rate for the bench home's added measures. */
-const BENCH_LABOR_RATE_USD_PER_HOUR = 58;
 
 const SHARED_TMY3 = fileURLToPath(
   new URL('../../../shared/data/weather/723170TYA.CSV', import.meta.url),
@@ -35,29 +33,8 @@ function weatherText(): { text: string; from: string } {
   return { text, from: 'a generated year (no shared weather folder here)' };
 }
 
-function median(values: readonly number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)] ?? Number.NaN;
-}
-
 function twentyMeasureHome(home: HomeFileInput, method: InfiltrationMethod): HomeFileInput {
-  const measures = [...home.measures];
-  for (let index = 0; measures.length < MEASURES; index++) {
-    const type = MEASURE_LIBRARY[index % MEASURE_LIBRARY.length];
-    if (type === undefined) break;
-    const units = 2 + (index % 5);
-    measures.push({
-      id: `bench-${index + 1}`,
-      type: type.id,
-      byUnits: { units },
-      cost: {
-        materialsUsd: type.defaultCost.materialsUsdPerUnit * units,
-        laborHours: type.defaultCost.laborHoursPerUnit * units,
-        laborRateUsdPerHour: BENCH_LABOR_RATE_USD_PER_HOUR,
-      },
-    });
-  }
-  return { ...home, infiltrationMethod: method, measures };
+  return { ...home, infiltrationMethod: method, measures: withLibraryMeasures(home, MEASURES) };
 }
 
 function timed(run: () => unknown): { medianMs: number; firstMs: number } {

@@ -8,6 +8,7 @@
 import { performance } from 'node:perf_hooks';
 import { evaluateHome } from '../../core/evaluate.ts';
 import type { HomeFileInput } from '../../core/schema.ts';
+import { median } from './_lib/bench-homes.ts';
 
 const TARGET_MS_PER_HOME = 5;
 const MEASURE_TYPES = [
@@ -99,11 +100,6 @@ function benchHome(random: () => number): HomeFileInput {
       lifeYears: 10 + Math.floor(random() * 15),
     })),
   };
-}
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)] ?? NaN;
 }
 
 const random = seeded(20261201);

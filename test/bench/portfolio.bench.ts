@@ -20,6 +20,7 @@ import { portfolioSummary } from '../../db/portfolio.ts';
 import { evaluatePortfolio } from '../../db/portfolio-plans.ts';
 import { climates } from '../../db/repositories/reusable-sets.ts';
 import { openStore } from '../../db/store.ts';
+import { median } from './_lib/bench-homes.ts';
 
 const HOMES = 10_000;
 const IMPORT_TARGET_S = 5;
@@ -95,11 +96,6 @@ function benchCsv(random: () => number): string {
     };
   });
   return Papa.unparse(rows);
-}
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)] ?? NaN;
 }
 
 const folder = mkdtempSync(join(tmpdir(), 'sealwork-bench-'));

@@ -27,6 +27,7 @@ import { launchChromium } from '../e2e/_lib/browser.ts';
 import { openWatchedPage } from '../e2e/_lib/page-watch.ts';
 import { openTempProject } from '../e2e/_lib/temp-project.ts';
 import { ensureUiBuilt } from '../e2e/_lib/ui-build.ts';
+import { withLibraryMeasures } from './_lib/bench-homes.ts';
 
 const START_TARGET_MS = 1500;
 const EDIT_TARGET_MS = 50;
@@ -35,8 +36,6 @@ const FRAME_GAP_TARGET_MS = 50;
 const START_RUNS = 7;
 const EDIT_RUNS = 16;
 const MEASURES = 20;
-/** An invented labour rate for the bench home's added measures. */
-const BENCH_LABOR_RATE_USD_PER_HOUR = 58;
 
 function median(values: readonly number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
@@ -210,22 +209,7 @@ async function main(): Promise<void> {
       const file = exportHomeFile(write, demo.id);
       const types = callChannel({ store: project.store }, 'library.list', {});
       if (!types.ok) throw new Error(types.error.message);
-      const measures = [...file.measures];
-      for (let index = 0; measures.length < MEASURES; index++) {
-        const type = types.value.types[index % types.value.types.length];
-        if (type === undefined) break;
-        const units = 2 + (index % 5);
-        measures.push({
-          id: `bench-${index + 1}`,
-          type: type.id,
-          byUnits: { units },
-          cost: {
-            materialsUsd: type.defaultCost.materialsUsdPerUnit * units,
-            laborHours: type.defaultCost.laborHoursPerUnit * units,
-            laborRateUsdPerHour: BENCH_LABOR_RATE_USD_PER_HOUR,
-          },
-        });
-      }
+      const measures = withLibraryMeasures(file, MEASURES, types.value.types);
       return importHomeFile(write, {
         ...file,
         name: 'Bench home: 20 measures',

@@ -19,7 +19,6 @@
 import { availableParallelism, loadavg } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
-import { MEASURE_LIBRARY } from '../../core/measure-library.ts';
 import { effectiveAnnualInfiltrationCfm } from '../../core/infiltration/ashrae-622.ts';
 import { HOURS_PER_YEAR } from '../../core/constants.ts';
 import { buildPriceBook } from '../../core/plan/prices.ts';
@@ -30,6 +29,7 @@ import { packageUncertainty } from '../../core/uncertainty/monte-carlo.ts';
 import { homePackageOf } from '../../core/uncertainty/portfolio-home.ts';
 import { DEMO_HOMES } from '../../db/demo/alder-creek.ts';
 import { openUncertaintyPool } from '../../electron/uncertainty-pool.ts';
+import { median, withLibraryMeasures } from './_lib/bench-homes.ts';
 
 const DRAWS_ONE_HOME = 10_000;
 const ONE_HOME_TARGET_MS = 100;
@@ -43,14 +43,6 @@ const SEED = 20_261_201;
 /** A portfolio's run: its percentiles, no histograms. */
 const PORTFOLIO_OPTIONS = { draws: PORTFOLIO_DRAWS, seed: SEED, histogramBins: 0 };
 
-/** An invented labour rate for the bench home's added measures. */
-const BENCH_LABOR_RATE_USD_PER_HOUR = 58;
-
-function median(values: readonly number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)] ?? NaN;
-}
-
 /** A small linear congruential generator for varying the bench homes (not the engine's). */
 function seeded(seed: number): () => number {
   let state = seed >>> 0;
@@ -61,22 +53,7 @@ function seeded(seed: number): () => number {
 }
 
 function twentyMeasureHome(home: HomeFileInput): HomeFileInput {
-  const measures = [...home.measures];
-  for (let index = 0; measures.length < MEASURES; index++) {
-    const type = MEASURE_LIBRARY[index % MEASURE_LIBRARY.length];
-    if (type === undefined) break;
-    const units = 2 + (index % 5);
-    measures.push({
-      id: `bench-${index + 1}`,
-      type: type.id,
-      byUnits: { units },
-      cost: {
-        materialsUsd: type.defaultCost.materialsUsdPerUnit * units,
-        laborHours: type.defaultCost.laborHoursPerUnit * units,
-        laborRateUsdPerHour: BENCH_LABOR_RATE_USD_PER_HOUR,
-      },
-    });
-  }
+  const measures = withLibraryMeasures(home, MEASURES);
   return { ...home, name: `${home.name} (bench, ${MEASURES} measures)`, measures };
 }
 
