@@ -43,16 +43,19 @@
  * best-package/energy-cells.ts, where a state's energy depends on its total alone; for the
  * enhanced model (aim2) on degree-day seasons best-package/bounds-aim2.ts, which bounds the
  * flow over the box of leakage by location the subtree can reach (interval bounds on AIM-2's
- * formulas and their derivatives, best-package/aim2-box.ts). That bound is looser than the
- * linear one (interval bounds widen with the box, and cut nothing where the box reaches a
- * distribution at which AIM-2's flow has no bounded slope), so AIM-2 searches stay far
- * slower. Hour-by-hour homes on the linear methods use the linear bound (each season's mean
+ * formulas and their derivatives, best-package/aim2-box.ts; a box of its own for each range
+ * of final totals, with the floor raised to the range's low end; PV less cost bounded jointly
+ * per measure). That bound is looser than the linear one (interval bounds widen with the box,
+ * and cut nothing where the box reaches a distribution at which AIM-2's flow has no bounded
+ * slope), so AIM-2 searches stay slower. Hour-by-hour homes on the linear methods use the linear bound (each season's mean
  * flows, the latent one included, stay linear in CFM50); a home on aim2 worked hour by hour
  * has no proven bound and is searched with the other cuts only: still exact, but its time
  * grows as 2^n.
  * test/core/best-package.test.ts and best-package-aim2.test.ts check the search against brute
  * force (degree-day, AIM-2 and hour-by-hour homes) and each condition the bounds rest on;
- * best-package-interval.test.ts checks the interval rules.
+ * best-package-interval.test.ts checks the interval rules; best-package-aim2-cuts.test.ts the
+ * AIM-2 refinements (share cuts, one-location falls, raised floors, the budget's reach), and
+ * brute force on homes with most of their leakage in the ceiling.
  */
 import { savingsToInvestmentRatio, simplePaybackYears } from '../economics/index.ts';
 import { InputError } from '../errors.ts';

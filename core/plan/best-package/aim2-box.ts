@@ -18,7 +18,10 @@
  * taken by the interval rules of interval.ts from G and its derivatives over the box of
  * shares the leakage box allows: σ_l from l_lo/(l_lo + Σ_{k≠l} k_hi) to
  * l_hi/max(l_hi + Σ_{k≠l} k_lo, floor) (L/(L + rest) rises with L and falls with the rest;
- * the total is never below the floor), within [0, 1].
+ * the total is never below the floor), within [0, 1]; a location with no leakage anywhere in
+ * the box has share 0; and, the shares summing to 1, each at most 1 less the others' lows and
+ * at least 1 less their highs. R's range is cut to 1 − σ_y.lo likewise (`withinSumOfShares`).
+ * A box with leakage at one location alone has G constant (`fallsAtOne`).
  * Where a formula leaves its domain over the box (a negative f_s or f_w, 2 − R reaching 0),
  * no bound is given (null) and the caller cuts nothing.
  */
@@ -158,6 +161,11 @@ export function aim2BoxBounds(model: HomeModel): Aim2BoxBounds {
     const heatingBox = seasonOf(heating);
     const coolingBox = cooling === null ? null : seasonOf(cooling);
     if (heatingBox === null || (cooling !== null && coolingBox === null)) return null;
+    const only = onlyLocation(box);
+    if (only !== null) {
+      heatingBox.fallPerCfm50 = fallsAtOne(only, heatingBox);
+      if (coolingBox !== null) coolingBox.fallPerCfm50 = fallsAtOne(only, coolingBox);
+    }
     return { heating: heatingBox, cooling: coolingBox };
   };
 }
@@ -192,23 +200,74 @@ function seasonBox(g: Dual, shares: Interval[], perCfm50: number): SeasonBox {
   };
 }
 
+/** The one location with leakage anywhere in the box, or null when there are more (or none). */
+export function onlyLocation(box: LeakageBox): LeakLocation | null {
+  const leaky = LEAK_LOCATIONS.filter((location) => box.upper[location] > 0);
+  return leaky.length === 1 ? (leaky[0] ?? null) : null;
+}
+
+/**
+ * D_l where every state of the box has leakage at one location l alone: its share is 1 in
+ * every state, so G is one constant G* and q = c·G*, whose derivative by L_l is G* (at most
+ * G's high end over the point box of shares). The interval rules cannot see this (where f_s
+ * and f_w are 0, as at a share of 1 in the ceiling, the roots' slopes are infinite and their
+ * products with the zero ranges of the other shares are not). No measure can remove anything
+ * at the other locations (a live measure removes more than 0, so its location has leakage),
+ * so their D stays unbounded.
+ */
+function fallsAtOne(only: LeakLocation, season: SeasonBox): Record<LeakLocation, number> {
+  const falls = {} as Record<LeakLocation, number>;
+  for (const location of LEAK_LOCATIONS) {
+    falls[location] = location === only ? season.flowPerCfm50.hi : Infinity;
+  }
+  return falls;
+}
+
 /** The shares a leakage box allows (top comment). */
 export function shareBox(box: LeakageBox): Record<LeakLocation, Interval> {
   const { lower, upper, floorCfm50 } = box;
   const lowSum = LEAK_LOCATIONS.reduce((total, location) => total + lower[location], 0);
   const highSum = LEAK_LOCATIONS.reduce((total, location) => total + upper[location], 0);
-  const out = {} as Record<LeakLocation, Interval>;
+  const own = {} as Record<LeakLocation, Interval>;
   for (const location of LEAK_LOCATIONS) {
     const lo = lower[location];
     const hi = upper[location];
     const leastTotal = lo + (highSum - hi);
     const mostTotal = Math.max(hi + (lowSum - lo), floorCfm50);
-    out[location] = {
+    own[location] = {
       lo: leastTotal > 0 ? Math.max(0, (lo / leastTotal) * (1 - BOX_MARGIN)) : 0,
-      hi: mostTotal > 0 ? Math.min(1, (hi / mostTotal) * (1 + BOX_MARGIN)) : 1,
+      hi: hi <= 0 ? 0 : mostTotal > 0 ? Math.min(1, (hi / mostTotal) * (1 + BOX_MARGIN)) : 1,
     };
   }
+  // The shares sum to 1: each is at most 1 less the others' least and at least 1 less their most.
+  const out = {} as Record<LeakLocation, Interval>;
+  for (const location of LEAK_LOCATIONS) {
+    let othersLo = 0;
+    let othersHi = 0;
+    for (const other of LEAK_LOCATIONS) {
+      if (other === location) continue;
+      othersLo += own[other].lo;
+      othersHi += own[other].hi;
+    }
+    const { lo, hi } = own[location];
+    const cutHi = Math.min(hi, (1 - othersLo) * (1 + BOX_MARGIN));
+    const cutLo = Math.max(lo, (1 - othersHi) * (1 - BOX_MARGIN));
+    out[location] = cutLo <= cutHi ? { lo: cutLo, hi: cutHi } : { lo, hi };
+  }
   return out;
+}
+
+/**
+ * R = σ_c + σ_f with its value range cut to what the shares allow: the four shares sum to 1
+ * and none is below 0, so R = 1 − σ_wall − σ_y ≤ 1 − σ_y.lo (widened by the float margin).
+ * Cutting a value range to a range every true value lies in keeps it a bound (interval.ts);
+ * R's derivatives (1 by σ_c and by σ_f) are unchanged. Without the cut a box whose shares each reach 1 (a subtree that may seal
+ * every location but one, whichever it is) lets R reach 2, where 2 − R, a divisor in f_s,
+ * reaches 0 and nothing is bounded.
+ */
+export function withinSumOfShares(r: Dual, flue: Dual): Dual {
+  const most = (1 - flue.v.lo) * (1 + BOX_MARGIN);
+  return { v: { lo: r.v.lo, hi: Math.min(r.v.hi, Math.max(r.v.lo, most)) }, d: r.d };
 }
 
 /** f_s and f_w over a share box (aim2.ts's formulas), and the shelter terms. */
@@ -218,7 +277,7 @@ function factorFunctions(model: HomeModel) {
   const zf = house.flueHeightFt === undefined ? undefined : house.flueHeightFt / house.heightFt;
   const front = 0.19 * (2 - n);
   const stackFactor = (c: Dual, f: Dual, y: Dual): Dual | null => {
-    const r = add(c, f);
+    const r = withinSumOfShares(add(c, f), y);
     const x = sub(c, f);
     const ratio = div(square(add(x, scale(y, 2 * n + 1))), plus(scale(r, -1), 2));
     if (ratio === null) return null;
@@ -243,7 +302,7 @@ function factorFunctions(model: HomeModel) {
   const windFactor = (c: Dual, f: Dual, y: Dual): Dual | null => {
     let fw: Dual | null;
     if (house.foundation === 'crawlspace') {
-      const r = add(c, f);
+      const r = withinSumOfShares(add(c, f), y);
       const xHeld = min(sub(c, f), plus(scale(y, -2), 1));
       const rCrawl = plus(scale(r, -(n / 2 + 0.2)), 1);
       const yCrawl = plus(scale(y, -0.25), 1);

@@ -49,16 +49,54 @@ export function buildAim2Bound(model: HomeModel, prices: PriceBook): Aim2Bound {
   };
 }
 
-/** The box of (a): X's leakage down to what the live measures can remove at each location. */
+/**
+ * The box of (a): X's leakage down to what the live measures can remove at each location,
+ * with the states' totals at least `leastTotalCfm50` (the floor, or more: (g) of
+ * bounds-aim2.ts).
+ */
 export function subtreeBox(
   bound: Aim2Bound,
   leakage: Readonly<Record<LeakLocation, number>>,
   measures: readonly LiveMeasure[],
+  leastTotalCfm50: number = bound.model.floorCfm50,
+  budgetLeftUsd: number = Infinity,
 ): Aim2Box | null {
   const lower = { ...leakage };
-  for (const measure of measures) lower[measure.location] -= measure.sizeCfm50;
-  for (const location of LEAK_LOCATIONS) lower[location] = Math.max(0, lower[location]);
-  return bound.box({ lower, upper: leakage, floorCfm50: bound.model.floorCfm50 });
+  for (const location of LEAK_LOCATIONS) {
+    const reach = removableWithin(measures, location, budgetLeftUsd);
+    lower[location] = Math.max(0, lower[location] - reach);
+  }
+  const floorCfm50 = Math.max(bound.model.floorCfm50, leastTotalCfm50);
+  return bound.box({ lower, upper: leakage, floorCfm50 });
+}
+
+/**
+ * The most the measures at a location can remove together within a budget, CFM50: each j
+ * removes at most a_j (its size) for its whole cost, so a set within the budget removes at
+ * most the fractional knapsack of sizes against costs, the most CFM50 per dollar first (those
+ * that cost nothing whole). With no budget, Σ a_j.
+ */
+export function removableWithin(
+  measures: readonly LiveMeasure[],
+  location: LeakLocation,
+  budgetUsd: number,
+): number {
+  const here = measures.filter((measure) => measure.location === location);
+  const all = here.reduce((total, measure) => total + measure.sizeCfm50, 0);
+  if (!(budgetUsd < Infinity)) return all;
+  const sorted = [...here].sort((a, b) => b.sizeCfm50 * a.costUsd - a.sizeCfm50 * b.costUsd);
+  let left = Math.max(0, budgetUsd) * (1 + BOUND_MARGIN) + 1e-9;
+  let removed = 0;
+  for (const measure of sorted) {
+    if (measure.costUsd <= left) {
+      removed += measure.sizeCfm50;
+      left -= measure.costUsd;
+    } else {
+      removed += (measure.sizeCfm50 * left) / measure.costUsd;
+      break;
+    }
+  }
+  return Math.min(all, removed * (1 + BOUND_MARGIN));
 }
 
 /** The most a measure's own PV can be anywhere in the box, from its slopes (e), USD. */

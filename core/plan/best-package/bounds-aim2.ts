@@ -9,8 +9,10 @@
  * (a, b) As in bounds.ts (remaining-measures.ts): measure j removes at most a_j (its removal
  * at X) anywhere below X, all of them no more than is left at each location and above the
  * floor, and T costs at least K(L). So every state below X has, at each location l, leakage in
- * [lower_l, upper_l] with upper_l = X's leakage and lower_l = max(0, upper_l − Σ_{j at l} a_j):
- * the box.
+ * [lower_l, upper_l] with upper_l = X's leakage and lower_l = max(0, upper_l − r_l): the box.
+ * r_l is Σ_{j at l} a_j, or less with a budget (aim2-steps.ts `removableWithin`): T's energy
+ * cost is within the budget left, and a set of the measures at l within a budget removes at
+ * most the fractional knapsack of their sizes against their costs.
  * (c) aim2-box.ts gives, for each season and over the whole box, G_lo ≤ q/c (the natural flow
  * per CFM50) and D_l ≥ ∂q/∂L_l (the flow's fall per CFM50 removed at l, wherever it has a
  * derivative). q is Lipschitz on the box (away from c = 0, where it tends to 0) and the
@@ -42,15 +44,32 @@
  * range of c_f from c_X down to the lowest total the measures can reach, and halves a range
  * that may win (its upper half first) up to AIM2_HALVINGS times before it says so: a range is
  * lost only when its own bounds lose, so every package is judged by a range that holds it.
+ * A range [lo, hi] gets a box of its own: every state on the way from X to a final state
+ * with total ≥ lo has total ≥ lo (totals only fall along a path), so (a)'s box with its floor
+ * raised to lo holds them all, and (c)–(f) hold on it with the bottom lo; its shares are
+ * narrower (aim2-box.ts bounds σ_l by l_hi/max(…, floor)), often away from a share of 1 in
+ * the ceiling, where the interval derivatives are infinite. Ranges of the first
+ * RANGED_BOX_HALVINGS halvings get their own box; deeper ones use their outer range's box,
+ * which holds their states too (its floor is lower), as does a range whose own box has no
+ * bound.
+ * (h) PV less cost, jointly ('npv' and 'savings' with package SIR ≥ 1). Step j's PV is at most
+ * applied_j·p_j before rounding (p_j = hf_j·ĝ_h + ef_j·ĝ_e, as in (f)(2)), and its cost is
+ * cost_j = κ_j·a_j ≥ κ_j·applied_j (applied_j ≤ a_j, κ_j = cost_j/a_j as in (b)). So PV(T) −
+ * cost(T) ≤ Σ_T applied_j·(p_j − κ_j) + half a cent a live step, at most the knapsack N of
+ * the rates p_j − κ_j over Σ applied = L in [L0, L1]. The outlooks use PV(T) only as PV(T) −
+ * cost(T) (NPV, and the package SIR drop) with cost(T) ≥ K(L0), so PV ≤ N + K(L0) serves
+ * them as a bound on PV (it is no bound on PV itself: not for 'sir'). It is what cuts a
+ * subtree whose measures each lose money at every state it can reach, where the separate
+ * bounds pair the largest saving rate with the cheapest cost rate of different measures.
  * Where the box's bounds are not numbers (a formula out of its domain) or are infinite (the
  * wind or stack factor reaching 0 within the box, where the flow's derivative is unbounded,
- * e.g. a box in which every leak but the ceiling's may be sealed), nothing is cut at that
- * node; deeper nodes have smaller boxes.
+ * e.g. a box in which every leak but the ceiling's may be sealed), nothing is cut on them;
+ * deeper nodes and narrower ranges have smaller boxes.
  * Hour-by-hour homes on AIM-2 are not covered (their flow is a load-weighted mean over the
  * hours, not these seasons' formula): they are searched without this bound.
  */
 import { LEAK_LOCATIONS, type LeakLocation } from '../../schema.ts';
-import type { SeasonBox } from './aim2-box.ts';
+import type { Aim2Box, SeasonBox } from './aim2-box.ts';
 import {
   ENERGY_MARGIN,
   knapsackOf,
@@ -86,6 +105,9 @@ export {
 
 /** How many times the walk may halve a range of final totals that may still win. */
 export const AIM2_HALVINGS = 14;
+
+/** For how many of those halvings a range gets a box of its own ((g)); deeper ones reuse it. */
+export const RANGED_BOX_HALVINGS = 6;
 
 /** The largest Σ D_l·x_l of (d) for a total in [least, most]. */
 function largestFall(
@@ -123,7 +145,13 @@ export function subtreeMayWinAim2(
   mayWin: (outlook: CellOutlook) => boolean,
 ): boolean {
   if (measures.length === 0) return deadEndMayWin(node, settings, mayWin);
-  const box = subtreeBox(bound, node.leakage, measures);
+  const box = subtreeBox(
+    bound,
+    node.leakage,
+    measures,
+    settings.floorCfm50,
+    settings.budgetLeftUsd,
+  );
   if (box === null) return true;
   const natural = bound.model.airflow(node.leakage);
   const spreads = factorSpreads(measures);
@@ -141,29 +169,39 @@ export function subtreeMayWinAim2(
       1);
   const outlookOf = outlookMaker(node, settings, slack);
 
-  // (e): each step's signed saving per CFM50 removed, by location.
+  // (e): each step's signed saving per CFM50 removed, by location, over the box of the
+  // states whose total is at least `least` (g), with the knapsacks of (f) on them.
   const curve = costCurve(node.leakage, node.cfm50 - settings.floorCfm50, measures);
   const bottom = node.cfm50 - curve.totalCfm50;
-  const slopes = stepSlopes(bound, box, node.cfm50, bottom);
-  const heatingSlope = (measure: LiveMeasure) => slopes.heating[measure.location];
-  const electricitySlope = (measure: LiveMeasure) => slopes.electricity[measure.location];
-  // A measure at the least factors has no excess, whatever its slopes.
-  const excessUpTo = knapsackOf(
-    measures,
-    (measure) =>
-      times(measure.factors.heating - spreads.heatingLeast, heatingSlope(measure)) +
-      times(measure.factors.electricity - spreads.electricityLeast, electricitySlope(measure)),
-  );
-  const pvUpTo = knapsackOf(
-    measures,
-    (measure) =>
+  const sumsOver = (rangeBox: Aim2Box, leastTotalCfm50: number) => {
+    const slopes = stepSlopes(bound, rangeBox, node.cfm50, leastTotalCfm50);
+    const heatingSlope = (measure: LiveMeasure) => slopes.heating[measure.location];
+    const electricitySlope = (measure: LiveMeasure) => slopes.electricity[measure.location];
+    const pvRate = (measure: LiveMeasure) =>
       times(measure.factors.heating, heatingSlope(measure)) +
-      times(measure.factors.electricity, electricitySlope(measure)),
-  );
-  const savingsUpTo = knapsackOf(
-    measures,
-    (measure) => heatingSlope(measure) + electricitySlope(measure),
-  );
+      times(measure.factors.electricity, electricitySlope(measure));
+    return {
+      box: rangeBox,
+      // A measure at the least factors has no excess, whatever its slopes.
+      excessUpTo: knapsackOf(
+        measures,
+        (measure) =>
+          times(measure.factors.heating - spreads.heatingLeast, heatingSlope(measure)) +
+          times(measure.factors.electricity - spreads.electricityLeast, electricitySlope(measure)),
+      ),
+      pvUpTo: knapsackOf(measures, pvRate),
+      // (h): PV less cost per CFM50, jointly for each measure.
+      netUpTo: knapsackOf(
+        measures,
+        (measure) => pvRate(measure) - measure.costUsd / measure.sizeCfm50,
+      ),
+      savingsUpTo: knapsackOf(
+        measures,
+        (measure) => heatingSlope(measure) + electricitySlope(measure),
+      ),
+    };
+  };
+  const whole = sumsOver(box, bottom);
   const lower = { ...node.leakage };
   for (const measure of measures) lower[measure.location] -= measure.sizeCfm50;
   const rooms = LEAK_LOCATIONS.map((location) => ({
@@ -200,14 +238,28 @@ export function subtreeMayWinAim2(
       : Math.max(0, lo * season.flowPerCfm50.lo, atX - largestFall(season, rooms, least, most));
 
   /** Whether packages whose final total is in [lo, hi] may win, halving up to `depth` times. */
-  const mayWinIn = (lo: number, hi: number, depth: number): boolean => {
+  const mayWinIn = (lo: number, hi: number, depth: number, outer: typeof whole): boolean => {
     const least = node.cfm50 - hi;
     const most = node.cfm50 - lo;
     const leastCostUsd = leastCostOf(least);
     if (leastCostUsd > budgetLeft) return false;
+    // (g): the states on the way to a total of at least lo; the outer range's box where this
+    // one's has no bound (it holds these states too).
+    const ranged =
+      lo > bottom && depth >= AIM2_HALVINGS - RANGED_BOX_HALVINGS
+        ? subtreeBox(bound, node.leakage, measures, lo, settings.budgetLeftUsd)
+        : null;
+    const sums = ranged === null ? outer : sumsOver(ranged, lo);
+    const { excessUpTo, pvUpTo, savingsUpTo, netUpTo } = sums;
     const fanCfm = Math.max(model.existingFanCfm, model.ventilation(hi).fanNeedCfm);
-    const heatingCfm = combine(flowLow(box.heating, natural.heatingCfm, lo, least, most), fanCfm);
-    const coolingCfm = combine(flowLow(box.cooling, natural.coolingCfm, lo, least, most), fanCfm);
+    const heatingCfm = combine(
+      flowLow(sums.box.heating, natural.heatingCfm, lo, least, most),
+      fanCfm,
+    );
+    const coolingCfm = combine(
+      flowLow(sums.box.cooling, natural.coolingCfm, lo, least, most),
+      fanCfm,
+    );
     const heatingLow = bound.heatingUsdPerCfm * heatingCfm * (1 - ENERGY_MARGIN);
     const electricityLow =
       (bound.coolingUsdPerCfm * coolingCfm + bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
@@ -220,6 +272,8 @@ export function subtreeMayWinAim2(
           rounding,
         pvUpTo(least, most) + rounding,
         2 * pvUpTo(0, most, true),
+        // (h): PV − cost ≤ the net knapsack, so PV ≤ it + the least cost (not for 'sir').
+        settings.objective === 'sir' ? Infinity : netUpTo(least, most) + rounding + leastCostUsd,
       ),
       savingsUsd: Math.min(
         node.heatingUsd + node.electricityUsd - heatingLow - electricityLow + rounding,
@@ -236,7 +290,7 @@ export function subtreeMayWinAim2(
     if (outlook === null || !mayWin(outlook)) return false;
     if (depth === 0 || hi - lo <= 0) return true;
     const middle = (lo + hi) / 2;
-    return mayWinIn(middle, hi, depth - 1) || mayWinIn(lo, middle, depth - 1);
+    return mayWinIn(middle, hi, depth - 1, sums) || mayWinIn(lo, middle, depth - 1, sums);
   };
-  return mayWinIn(bottom, node.cfm50, AIM2_HALVINGS);
+  return mayWinIn(bottom, node.cfm50, AIM2_HALVINGS, whole);
 }
