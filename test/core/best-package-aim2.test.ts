@@ -6,7 +6,6 @@
  * model's own airflow and energy (model.airflow, model.energyOf) at states drawn inside the
  * boxes, and against finite differences: an independent computation, not the bound's.
  */
-import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
 import { totalCfm50, type LeakageByLocation } from '../../core/home-model.ts';
@@ -23,86 +22,25 @@ import type { LiveMeasure } from '../../core/plan/best-package/remaining-measure
 import { buildPriceBook } from '../../core/plan/prices.ts';
 import { LEAK_LOCATIONS, type HomeFileInput, type LeakLocation } from '../../core/schema.ts';
 import type { WeatherYear } from '../../core/weather/hourly-airflow.ts';
-import { homeArbitrary } from '../_lib/home-arbitrary.ts';
 import {
   bestByBruteForce,
   everyPackage,
   measuresInPlanOrder,
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
+import { generatedPackageHomes, packageQueriesFor } from '../_lib/package-cases.ts';
 
 const SEED = 20261202;
 const HOMES = 200;
 
-/** Generated AIM-2 homes of 1–14 measures, most of them energy measures (as in best-package.test.ts). */
+/** Generated homes on the given methods (test/_lib/package-cases.ts). */
 function generatedHomes(
   methods: readonly HomeFileInput['infiltrationMethod'][],
   count: number,
   seed: number,
   most = 14,
 ) {
-  return fc.sample(
-    fc
-      .noBias(fc.integer({ min: 1, max: most }))
-      .chain((measures) =>
-        fc.record({
-          home: homeArbitrary({ measureCount: { min: measures, max: measures }, methods }),
-          kinds: fc.array(
-            fc.constantFrom('energy', 'energy', 'energy', 'energy', 'safety', 'declined'),
-            {
-              minLength: measures,
-              maxLength: measures,
-            },
-          ),
-          allEnergy: fc.boolean(),
-          budgetFraction: fc.constantFrom(0, 0.05, 0.2, 0.35, 0.5, 0.75, 1, 1.5),
-          kind: fc.integer({ min: 0, max: 3 }),
-        }),
-      )
-      .map(({ home, kinds, allEnergy, budgetFraction, kind }) => {
-        home.measures.forEach((measure, index) => {
-          const role = allEnergy ? 'energy' : (kinds[index] ?? 'energy');
-          measure.status = role === 'declined' ? 'declined' : 'planned';
-          measure.cost = { ...measure.cost, healthAndSafety: role === 'safety' };
-        });
-        return { home, budgetFraction, kind };
-      }),
-    { seed, numRuns: count },
-  );
-}
-
-/** The four queries of best-package.test.ts: a budget from the energy cost, constraints by kind. */
-function queriesFor(
-  evaluation: Evaluation,
-  budgetFraction: number,
-  kind: number,
-): BruteForceQuery[] {
-  const energyCost = measuresInPlanOrder(evaluation).energy.reduce(
-    (total, measure) => total + measure.cost.totalUsdFloat,
-    0,
-  );
-  const budgetUsd = Math.round(energyCost * budgetFraction * 100) / 100;
-  return [
-    { budgetUsd, objective: 'npv', everyMeasureSirAtLeastOne: false, packageSirAtLeastOne: false },
-    {
-      budgetUsd: kind === 0 ? Infinity : budgetUsd,
-      objective: 'savings',
-      everyMeasureSirAtLeastOne: false,
-      packageSirAtLeastOne: true,
-    },
-    {
-      budgetUsd,
-      objective: kind === 1 ? 'sir' : 'npv',
-      everyMeasureSirAtLeastOne: true,
-      packageSirAtLeastOne: kind === 2,
-    },
-    {
-      budgetUsd,
-      objective: 'savings',
-      everyMeasureSirAtLeastOne: true,
-      packageSirAtLeastOne: false,
-    },
-  ];
+  return generatedPackageHomes({ count, seed, most, methods });
 }
 
 /** bestPackage against brute force on one evaluation; returns how many queries were compared. */
@@ -130,7 +68,7 @@ describe('best package on AIM-2 homes: equals brute force', () => {
     for (const { home, budgetFraction, kind } of generatedHomes(['aim2'], HOMES, SEED)) {
       const evaluation = evaluateHome(home);
       expect(aim2Bounded(evaluation.model)).toBe(true);
-      const queries = queriesFor(evaluation, budgetFraction, kind);
+      const queries = packageQueriesFor(evaluation, budgetFraction, kind);
       const result = compareWithBruteForce(evaluation, queries, home.name);
       compared += result.compared;
       counts.push(result.count);
@@ -405,7 +343,7 @@ describe('best package on hour-by-hour homes: equals brute force', () => {
         expect(found.boundsUsed).toBe(method !== 'aim2');
         compared += compareWithBruteForce(
           evaluation,
-          queriesFor(evaluation, budgetFraction, kind),
+          packageQueriesFor(evaluation, budgetFraction, kind),
           `${method} hourly`,
         ).compared;
         methods.add(method);

@@ -7,7 +7,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
+import { evaluateHome } from '../../core/evaluate.ts';
 import {
   BOUNDED_METHODS,
   bestPackage,
@@ -31,7 +31,6 @@ import { JUNIPER_HOLLOW } from '../../db/demo/homes/juniper-hollow.ts';
 import { LARCH_TERRACE } from '../../db/demo/homes/larch-terrace.ts';
 import { TANAGER_STREET } from '../../db/demo/homes/tanager-street.ts';
 import { expectInputError } from '../_lib/expect-input-error.ts';
-import { homeArbitrary } from '../_lib/home-arbitrary.ts';
 import { validBaseHome } from '../_lib/base-home.ts';
 import {
   bestByBruteForce,
@@ -39,75 +38,12 @@ import {
   measuresInPlanOrder,
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
+import { generatedPackageHomes, packageQueriesFor } from '../_lib/package-cases.ts';
 
 const SEED = 20261201;
 const HOMES = 200;
 
-/**
- * Generated homes of 1–14 measures with a budget fraction and a query kind each. The
- * generator marks about half its measures health and safety and a third declined; here most
- * are made energy measures again (all of them in half the homes), so the search has up to 14
- * to choose from.
- */
-const homes = fc.sample(
-  fc
-    .noBias(fc.integer({ min: 1, max: 14 }))
-    .chain((count) =>
-      fc.record({
-        home: homeArbitrary({ measureCount: { min: count, max: count } }),
-        kinds: fc.array(
-          fc.constantFrom('energy', 'energy', 'energy', 'energy', 'safety', 'declined'),
-          {
-            minLength: count,
-            maxLength: count,
-          },
-        ),
-        allEnergy: fc.boolean(),
-        budgetFraction: fc.constantFrom(0, 0.05, 0.2, 0.35, 0.5, 0.75, 1, 1.5),
-        kind: fc.integer({ min: 0, max: 3 }),
-      }),
-    )
-    .map(({ home, kinds, allEnergy, budgetFraction, kind }) => {
-      home.measures.forEach((measure, index) => {
-        const role = allEnergy ? 'energy' : (kinds[index] ?? 'energy');
-        measure.status = role === 'declined' ? 'declined' : 'planned';
-        measure.cost = { ...measure.cost, healthAndSafety: role === 'safety' };
-      });
-      return { home, budgetFraction, kind };
-    }),
-  { seed: SEED, numRuns: HOMES },
-);
-
-/** The queries asked of one home: a budget from its energy cost and constraints by kind. */
-function queriesFor(evaluation: Evaluation, budgetFraction: number, kind: number) {
-  const energyCost = measuresInPlanOrder(evaluation).energy.reduce(
-    (total, measure) => total + measure.cost.totalUsdFloat,
-    0,
-  );
-  const budgetUsd = Math.round(energyCost * budgetFraction * 100) / 100;
-  const all: BruteForceQuery[] = [
-    { budgetUsd, objective: 'npv', everyMeasureSirAtLeastOne: false, packageSirAtLeastOne: false },
-    {
-      budgetUsd: kind === 0 ? Infinity : budgetUsd,
-      objective: 'savings',
-      everyMeasureSirAtLeastOne: false,
-      packageSirAtLeastOne: true,
-    },
-    {
-      budgetUsd,
-      objective: kind === 1 ? 'sir' : 'npv',
-      everyMeasureSirAtLeastOne: true,
-      packageSirAtLeastOne: kind === 2,
-    },
-    {
-      budgetUsd,
-      objective: 'savings',
-      everyMeasureSirAtLeastOne: true,
-      packageSirAtLeastOne: false,
-    },
-  ];
-  return all;
-}
+const homes = generatedPackageHomes({ count: HOMES, seed: SEED });
 
 function optionsOf(query: BruteForceQuery): BestPackageOptions {
   return { ...query };
@@ -124,7 +60,7 @@ describe('best package: equals brute force', () => {
       const packages = everyPackage(evaluation);
       counts.push(measuresInPlanOrder(evaluation).energy.length);
       expect(packages).toHaveLength(2 ** measuresInPlanOrder(evaluation).energy.length);
-      for (const query of queriesFor(evaluation, budgetFraction, kind)) {
+      for (const query of packageQueriesFor(evaluation, budgetFraction, kind)) {
         const expected = bestByBruteForce(packages, query);
         const found = bestPackage(evaluation, optionsOf(query));
         const context = `${home.infiltrationMethod}, ${JSON.stringify(query)}`;
