@@ -4,7 +4,7 @@
  * measured savings beside the plan's estimate). Files are read in the page and sent as text.
  */
 import { call } from '../bridge.ts';
-import type { ChannelResponse } from '../../electron/channels.ts';
+import type { ChannelResponse, Reply } from '../../electron/channels.ts';
 
 export type BillsListing = ChannelResponse<'bills.list'>;
 export type BillsAnalysis = ChannelResponse<'bills.analyse'>;
@@ -52,47 +52,49 @@ export class BillsState {
   }
 
   async importBills(file: File): Promise<void> {
-    this.status = `Reading ${file.name}…`;
-    const reply = await call('bills.import', { homeId: this.homeId, csv: await file.text() });
-    if (!reply.ok) {
-      this.failure = `${file.name} was not stored. ${reply.error.message}`;
-      this.status = '';
-      return;
-    }
-    if (reply.value.problems.length > 0) {
-      this.refused = { fileName: file.name, problems: reply.value.problems };
-      this.status = refusedWords(file.name, reply.value.problems.length);
-      return;
-    }
-    this.refused = null;
-    this.failure = null;
-    this.analysis = null;
-    this.status = `Stored ${reply.value.count} bills from ${file.name}.`;
-    await this.load();
+    await this.#importCsv(
+      file,
+      (csv) => call('bills.import', { homeId: this.homeId, csv }),
+      (value) => `Stored ${value.count} bills from ${file.name}.`,
+    );
   }
 
   async importTemperatures(file: File): Promise<void> {
+    const stored = await this.#importCsv(
+      file,
+      (csv) => call('bills.importTemperatures', { homeId: this.homeId, csv }),
+      (value) => `Stored ${value.days} days of temperatures from ${file.name}.`,
+    );
+    if (stored) this.source = 'stored';
+  }
+
+  /**
+   * One CSV file through its channel: refused whole (its problems listed) or stored, then the
+   * bills read again. Returns whether it was stored.
+   */
+  async #importCsv<Value extends { problems: BillsCsvProblem[] }>(
+    file: File,
+    send: (csv: string) => Promise<Reply<Value>>,
+    storedWords: (value: Value) => string,
+  ): Promise<boolean> {
     this.status = `Reading ${file.name}…`;
-    const reply = await call('bills.importTemperatures', {
-      homeId: this.homeId,
-      csv: await file.text(),
-    });
+    const reply = await send(await file.text());
     if (!reply.ok) {
       this.failure = `${file.name} was not stored. ${reply.error.message}`;
       this.status = '';
-      return;
+      return false;
     }
     if (reply.value.problems.length > 0) {
       this.refused = { fileName: file.name, problems: reply.value.problems };
       this.status = refusedWords(file.name, reply.value.problems.length);
-      return;
+      return false;
     }
     this.refused = null;
     this.failure = null;
     this.analysis = null;
-    this.source = 'stored';
-    this.status = `Stored ${reply.value.days} days of temperatures from ${file.name}.`;
+    this.status = storedWords(reply.value);
     await this.load();
+    return true;
   }
 
   async analyse(): Promise<void> {
