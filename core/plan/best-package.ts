@@ -45,9 +45,11 @@
  * flow over the box of leakage by location the subtree can reach (interval bounds on AIM-2's
  * formulas and their derivatives, best-package/aim2-box.ts; a box of its own for each range
  * of final totals, with the floor raised to the range's low end; PV less cost bounded jointly
- * per measure). That bound is looser than the linear one (interval bounds widen with the box,
- * and cut nothing where the box reaches a distribution at which AIM-2's flow has no bounded
- * slope), so AIM-2 searches stay slower. Hour-by-hour homes on the linear methods use the linear bound (each season's mean
+ * per measure; and a bound on PV by parts, best-package/path-factors.ts, that needs only the
+ * range of a year's dollars, not the flow's slope). That bound is looser than the linear one
+ * (interval bounds widen with the box, and its slopes have no bound where the box reaches a
+ * distribution at which the interval rules cannot bound AIM-2's derivative), so AIM-2
+ * searches stay slower. Hour-by-hour homes on the linear methods use the linear bound (each season's mean
  * flows, the latent one included, stay linear in CFM50); a home on aim2 worked hour by hour
  * has no proven bound and is searched with the other cuts only: still exact, but its time
  * grows as 2^n.

@@ -61,10 +61,20 @@
  * them as a bound on PV (it is no bound on PV itself: not for 'sir'). It is what cuts a
  * subtree whose measures each lose money at every state it can reach, where the separate
  * bounds pair the largest saving rate with the cheapest cost rate of different measures.
+ * (i) PV by parts, with no slope (path-factors.ts). Summation by parts bounds the PV of T by
+ * F_1·(h_X − ℓ) + U·(u − ℓ) (and the same for electricity), F_1 the first step's factor, U the
+ * sum of the rises of the factors along T, and [ℓ, u] the range of a year's dollars over the
+ * states T passes through: every one has a total in [lo, c_X], so its flow is at most c_X·G_hi
+ * and its fan at most F(lo), and it is at least the flow of (d) with L in [0, c_X − lo] and
+ * the fan at X's (or the final state's least of (e)). Only the flow's range enters, never its
+ * slope, so this stays finite where (f) and (h) are not: where the box reaches a share of 1 in
+ * the ceiling. It is what proves a tight house with a 62.2 fan loses on every package, where
+ * the fan's flow dwarfs what sealing saves.
  * Where the box's bounds are not numbers (a formula out of its domain) or are infinite (the
- * wind or stack factor reaching 0 within the box, where the flow's derivative is unbounded,
- * e.g. a box in which every leak but the ceiling's may be sealed), nothing is cut on them;
- * deeper nodes and narrower ranges have smaller boxes.
+ * wind or stack factor reaching 0 within the box, where the interval rules give the flow's
+ * derivative no bound, e.g. a box in which every leak but the ceiling's may be sealed), the
+ * terms built on slopes cut nothing and (i) is left; deeper nodes and narrower ranges have
+ * smaller boxes.
  * Hour-by-hour homes on AIM-2 are not covered (their flow is a load-weighted mean over the
  * hours, not these seasons' formula): they are searched without this bound.
  */
@@ -85,6 +95,7 @@ import {
   type BoundSettings,
   type CellOutlook,
 } from './bounds.ts';
+import { pathFactorPvBoundUsd } from './path-factors.ts';
 import {
   BOUND_MARGIN,
   HALF_CENT_USD,
@@ -237,6 +248,56 @@ export function subtreeMayWinAim2(
       ? 0
       : Math.max(0, lo * season.flowPerCfm50.lo, atX - largestFall(season, rooms, least, most));
 
+  const fanAtX = Math.max(model.existingFanCfm, model.ventilation(node.cfm50).fanNeedCfm);
+  /**
+   * (i): a year's dollars at X and their range over the states on the way to a final total in
+   * [lo, X's]: every such state has a total in [lo, c_X], so its flow is at most c_X·G_hi and
+   * its fan at most F(lo); at least the flow of (d) with nothing removed required and the fan
+   * at X's, or the final state's least (`finalHeatingUsd`, `finalElectricityUsd`).
+   */
+  const wayDollars = (
+    rangeBox: Aim2Box,
+    lo: number,
+    most: number,
+    finalHeatingUsd: number,
+    finalElectricityUsd: number,
+  ) => {
+    const fanMost = Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm);
+    const flowMost = (season: SeasonBox | null) =>
+      season === null ? 0 : node.cfm50 * season.flowPerCfm50.hi;
+    const heatingLeast = Math.min(
+      finalHeatingUsd,
+      bound.heatingUsdPerCfm *
+        combine(flowLow(rangeBox.heating, natural.heatingCfm, lo, 0, most), fanAtX) *
+        (1 - ENERGY_MARGIN),
+    );
+    const electricityLeast = Math.min(
+      finalElectricityUsd,
+      (bound.coolingUsdPerCfm *
+        combine(flowLow(rangeBox.cooling, natural.coolingCfm, lo, 0, most), fanAtX) +
+        bound.fanUsdPerCfm * (fanAtX - model.existingFanCfm)) *
+        (1 - ENERGY_MARGIN),
+    );
+    return {
+      heating: {
+        atNode: node.heatingUsd,
+        least: heatingLeast,
+        most:
+          bound.heatingUsdPerCfm *
+          combine(flowMost(rangeBox.heating), fanMost) *
+          (1 + ENERGY_MARGIN),
+      },
+      electricity: {
+        atNode: node.electricityUsd,
+        least: electricityLeast,
+        most:
+          (bound.coolingUsdPerCfm * combine(flowMost(rangeBox.cooling), fanMost) +
+            bound.fanUsdPerCfm * (fanMost - model.existingFanCfm)) *
+          (1 + ENERGY_MARGIN),
+      },
+    };
+  };
+
   /** Whether packages whose final total is in [lo, hi] may win, halving up to `depth` times. */
   const mayWinIn = (lo: number, hi: number, depth: number, outer: typeof whole): boolean => {
     const least = node.cfm50 - hi;
@@ -264,6 +325,11 @@ export function subtreeMayWinAim2(
     const electricityLow =
       (bound.coolingUsdPerCfm * coolingCfm + bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
       (1 - ENERGY_MARGIN);
+    // (i): the dollars of every state on the way, for the bound by parts.
+    const dollars = wayDollars(sums.box, lo, most, heatingLow, electricityLow);
+    const byParts =
+      pathFactorPvBoundUsd(measures, dollars.heating, dollars.electricity) * (1 + BOUND_MARGIN) +
+      rounding;
     const terms = {
       pvUsd: Math.min(
         spreads.heatingLeast * (node.heatingUsd - heatingLow) +
@@ -274,6 +340,7 @@ export function subtreeMayWinAim2(
         2 * pvUpTo(0, most, true),
         // (h): PV − cost ≤ the net knapsack, so PV ≤ it + the least cost (not for 'sir').
         settings.objective === 'sir' ? Infinity : netUpTo(least, most) + rounding + leastCostUsd,
+        byParts,
       ),
       savingsUsd: Math.min(
         node.heatingUsd + node.electricityUsd - heatingLow - electricityLow + rounding,

@@ -1,0 +1,231 @@
+/**
+ * The AIM-2 bound by parts (core/plan/best-package/path-factors.ts, bounds-aim2.ts (i)),
+ * checked against independent computations written here:
+ * - its dynamic programme against every subsequence of the measures enumerated;
+ * - the inequality itself on drawn sequences of factors and of a year's dollars, with Σ F_j·
+ *   (h_{j−1} − h_j) summed step by step as the plan sums PV (summation by parts, Abel's
+ *   identity: a standard result, e.g. Knuth, Graham & Patashnik, Concrete Mathematics, §2.6);
+ * - the search against brute force (test/_lib/package-brute-force.ts) on tight AIM-2 homes
+ *   that already call for a 62.2 fan, with measures of several lives: the homes where the
+ *   fan's flow dwarfs what sealing can save, so that bound is what cuts the search.
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { evaluateHome } from '../../core/evaluate.ts';
+import { bestPackage } from '../../core/plan/best-package.ts';
+import { pathFactorPvBoundUsd } from '../../core/plan/best-package/path-factors.ts';
+import type { LiveMeasure } from '../../core/plan/best-package/remaining-measures.ts';
+import type { HomeFileInput } from '../../core/schema.ts';
+import { homeArbitrary } from '../_lib/home-arbitrary.ts';
+import {
+  bestByBruteForce,
+  everyPackage,
+  measuresInPlanOrder,
+  type BruteForceQuery,
+} from '../_lib/package-brute-force.ts';
+
+const SEED = 20261202;
+
+/** Measures with the given factors (only the factors matter to the bound). */
+function measuresWith(factors: readonly { heating: number; electricity: number }[]): LiveMeasure[] {
+  return factors.map((factor, index) => ({
+    index,
+    location: 'ceiling',
+    sizeCfm50: 1,
+    costUsd: 1,
+    factors: factor,
+  }));
+}
+
+const factorArbitrary = fc.record({
+  // A few lives' factors, so equal factors and rises both occur.
+  heating: fc.constantFrom(0, 6.2, 8.99, 12.87, 16.38),
+  electricity: fc.constantFrom(0, 7.1, 9.4, 13.3),
+});
+
+describe('the bound by parts', () => {
+  it('is the largest F_1·(h_0 − ℓ) + U·(u − ℓ) over every subsequence (enumerated)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(factorArbitrary, { minLength: 0, maxLength: 9 }),
+        fc.double({ min: -5, max: 50, noNaN: true }),
+        fc.double({ min: 0, max: 80, noNaN: true }),
+        fc.double({ min: -5, max: 20, noNaN: true }),
+        fc.double({ min: 0, max: 30, noNaN: true }),
+        (factors, heatingFirst, heatingRise, electricityFirst, electricityRise) => {
+          const heating = { atNode: 100 + heatingFirst, least: 100, most: 100 + heatingRise };
+          const electricity = {
+            atNode: 40 + electricityFirst,
+            least: 40,
+            most: 40 + electricityRise,
+          };
+          let expected = 0;
+          for (let subset = 1; subset < 2 ** factors.length; subset++) {
+            const chosen = factors.filter((_, index) => (subset >> index) & 1);
+            const first = chosen[0];
+            if (first === undefined) continue;
+            let value =
+              first.heating * (heating.atNode - heating.least) +
+              first.electricity * (electricity.atNode - electricity.least);
+            for (let step = 1; step < chosen.length; step++) {
+              const before = chosen[step - 1];
+              const after = chosen[step];
+              if (before === undefined || after === undefined) continue;
+              value +=
+                Math.max(0, after.heating - before.heating) * (heating.most - heating.least) +
+                Math.max(0, after.electricity - before.electricity) *
+                  (electricity.most - electricity.least);
+            }
+            expected = Math.max(expected, value);
+          }
+          const found = pathFactorPvBoundUsd(measuresWith(factors), heating, electricity);
+          expect(found).toBeCloseTo(expected, 9);
+        },
+      ),
+      { seed: SEED, numRuns: 300 },
+    );
+  });
+
+  it('holds Σ F_j·(h_{j−1} − h_j) for every path whose dollars stay in [ℓ, u]', () => {
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.record({
+            factors: factorArbitrary,
+            heatingUsd: fc.double({ min: 0, max: 1, noNaN: true }),
+            electricityUsd: fc.double({ min: 0, max: 1, noNaN: true }),
+          }),
+          { minLength: 1, maxLength: 12 },
+        ),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (steps, heatingStart, electricityStart) => {
+          // Dollars at each state: the node's, then each step's, all inside [ℓ, u].
+          const heating = { least: 150, most: 260, atNode: 150 + 110 * heatingStart };
+          const electricity = { least: 60, most: 75, atNode: 60 + 15 * electricityStart };
+          let pv = 0;
+          let heatingBefore = heating.atNode;
+          let electricityBefore = electricity.atNode;
+          for (const step of steps) {
+            const heatingAfter = heating.least + (heating.most - heating.least) * step.heatingUsd;
+            const electricityAfter =
+              electricity.least + (electricity.most - electricity.least) * step.electricityUsd;
+            pv +=
+              step.factors.heating * (heatingBefore - heatingAfter) +
+              step.factors.electricity * (electricityBefore - electricityAfter);
+            heatingBefore = heatingAfter;
+            electricityBefore = electricityAfter;
+          }
+          const bound = pathFactorPvBoundUsd(
+            measuresWith(steps.map((step) => step.factors)),
+            heating,
+            electricity,
+          );
+          expect(pv).toBeLessThanOrEqual(bound * (1 + 1e-12) + 1e-9);
+        },
+      ),
+      { seed: SEED + 1, numRuns: 500 },
+    );
+  });
+});
+
+/**
+ * Generated tight AIM-2 homes (2 to 4 air changes at 50 Pa) with no continuous ventilation or
+ * a small fan, so the 62.2 fan is called for before any sealing; most leakage in the ceiling
+ * in half of them; every measure a planned energy measure of its generated life, its cost
+ * scaled down in some homes so that some measures pay and the search must weigh them.
+ */
+function tightFanHomes(count: number, seed: number, most: number) {
+  return fc
+    .sample(
+      fc.record({
+        home: homeArbitrary({ measureCount: { min: 2, max: most }, methods: ['aim2'] }),
+        airChangesAt50Pa: fc.constantFrom(2, 3, 4),
+        ceilingHeavy: fc.boolean(),
+        fan: fc.constantFrom(
+          { existingFanCfm: 0, fanType: 'exhaust' as const, fanCostUsd: 520 },
+          { existingFanCfm: 20, fanType: 'exhaust' as const, fanCostUsd: 400 },
+          { existingFanCfm: 0, fanType: 'balanced' as const, fanCostUsd: 1400 },
+        ),
+        budgetFraction: fc.constantFrom(0.35, 0.5, 1),
+        costScale: fc.constantFrom(0.03, 0.1, 0.3, 1),
+      }),
+      { seed, numRuns: count },
+    )
+    .map(({ home, airChangesAt50Pa, ceilingHeavy, fan, budgetFraction, costScale }) => {
+      const cfm50 = Math.round((airChangesAt50Pa * home.house.conditionedVolumeFt3) / 60);
+      const shaped: HomeFileInput = {
+        ...home,
+        leakageTest: { cfm50 },
+        ventilation: fan,
+        ...(ceilingHeavy
+          ? { leakShares: { ceiling: 0.84, wall: 0.12, floor: 0.04, flue: 0 } }
+          : {}),
+        measures: home.measures.map((measure) => ({
+          ...measure,
+          status: 'planned',
+          cost: {
+            ...measure.cost,
+            healthAndSafety: false,
+            ...(measure.cost.materialsUsd === undefined
+              ? {}
+              : { materialsUsd: Math.round(measure.cost.materialsUsd * costScale * 100) / 100 }),
+            ...(measure.cost.laborHours === undefined
+              ? {}
+              : { laborHours: Math.round(measure.cost.laborHours * costScale * 100) / 100 }),
+          },
+        })),
+      };
+      delete shaped.leakageFloorCfm50;
+      return { home: shaped, budgetFraction };
+    });
+}
+
+describe('best package on tight AIM-2 homes that call for a fan: equals brute force', () => {
+  it('for best NPV, best savings with package SIR ≥ 1 and best SIR', () => {
+    let fanHomes = 0;
+    for (const { home, budgetFraction } of tightFanHomes(60, SEED + 2, 12)) {
+      const evaluation = evaluateHome(home);
+      const energyCost = measuresInPlanOrder(evaluation).energy.reduce(
+        (total, measure) => total + measure.cost.totalUsdFloat,
+        0,
+      );
+      if (evaluation.model.ventilation(evaluation.model.testInCfm50).fanNeedCfm > 0) fanHomes += 1;
+      const budgetUsd = Math.round(energyCost * budgetFraction * 100) / 100;
+      const packages = everyPackage(evaluation);
+      const queries: BruteForceQuery[] = [
+        {
+          budgetUsd,
+          objective: 'npv',
+          everyMeasureSirAtLeastOne: false,
+          packageSirAtLeastOne: false,
+        },
+        {
+          budgetUsd,
+          objective: 'savings',
+          everyMeasureSirAtLeastOne: false,
+          packageSirAtLeastOne: true,
+        },
+        {
+          budgetUsd,
+          objective: 'sir',
+          everyMeasureSirAtLeastOne: false,
+          packageSirAtLeastOne: true,
+        },
+      ];
+      for (const query of queries) {
+        const expected = bestByBruteForce(packages, query);
+        const found = bestPackage(evaluation, { ...query });
+        const context = `${home.name}, ${JSON.stringify(query)}`;
+        expect(found.measureIds, context).toEqual(expected.measureIds);
+        expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
+        expect(found.annualSavingsUsd.toFixed(2), context).toBe(
+          expected.annualSavingsUsd.toFixed(2),
+        );
+        expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
+      }
+    }
+    // Most of the generated homes do call for the fan before any sealing.
+    expect(fanHomes).toBeGreaterThan(30);
+  }, 300_000);
+});
