@@ -11,6 +11,7 @@ import { InputError, type InputProblem } from './errors.ts';
 import { rangeSchema } from './_lib/range-schema.ts';
 import { formatPath, problemsFromZod } from './_lib/zod-problems.ts';
 import { crossFieldProblems } from './schema-rules.ts';
+import { homeWeatherYearSchema } from './weather/weather-year-file.ts';
 
 export const HOME_FILE_FORMAT = 'sealwork-home/1';
 
@@ -353,11 +354,27 @@ export const homeFileSchema = z
     financing: financingSchema.optional(),
     calibration: calibrationSchema.optional(),
     measures: z.array(measureSchema).max(200),
+    /**
+     * The weather year an hourly home is planned on (core/weather/weather-year-file.ts),
+     * written by export so the file stands on its own; last, after the home itself.
+     */
+    weatherYear: homeWeatherYearSchema.optional(),
   })
   .superRefine(
     (home, ctx) => {
       for (const problem of crossFieldProblems(home, refusedPaths(ctx.issues))) {
         ctx.addIssue({ code: 'custom', input: home, path: problem.path, message: problem.message });
+      }
+      // This runs even on input that is no object at all (refused above), so it checks first.
+      const given = typeof home === 'object' && home !== null ? home : undefined;
+      if (given?.weatherYear !== undefined && given.hourlyWeather === undefined) {
+        ctx.addIssue({
+          code: 'custom',
+          input: home,
+          path: ['weatherYear'],
+          message:
+            'is the year of a home planned hour by hour: add hourlyWeather ({} for balance points of 65 °F), or leave weatherYear out',
+        });
       }
     },
     // Run even when some fields were refused: each rule skips the fields that were.

@@ -76,12 +76,13 @@ export function bytesOfBase64(text: string, field: string): Buffer {
 }
 
 /**
- * A stored home as a home file with its photos.
+ * A stored home as a home file with its photos; an hourly home's file carries its weather
+ * year (exportHomeFile's `withWeatherYear`), as a bundle is made to be taken elsewhere.
  *
  * @throws InputError naming each part the home still lacks (as exportHomeFile)
  */
 export function exportHomeFileWithAttachments(read: ReadAccess, homeId: number): HomeFileBundle {
-  const file = exportHomeFile(read, homeId);
+  const file = exportHomeFile(read, homeId, { withWeatherYear: true });
   const photos = listPhotos(read, homeId).map((summary): PhotoAttachment => {
     const photo = getPhoto(read, summary.id);
     return {

@@ -3,6 +3,14 @@
  * relies on (a linked climate or price set, the library defaults its measures use) so the
  * file stands on its own; import stores it as a new home. Export → import → export gives the
  * same file.
+ *
+ * A home planned hour by hour relies on the weather year its climate was made from. Asked
+ * for (`withWeatherYear`, as the homeFile.export channels and the command line ask), export
+ * writes that year into the file (`weatherYear`); import then stores the file's climate
+ * with those hours, or links the home to an identical stored climate (home-file-weather.ts),
+ * so the home evaluates to the same figures in any project. Left out otherwise: the store's
+ * own evaluations read the hours from the store, and a portfolio's files should not carry a
+ * copy of the year for every home.
  */
 import { InputError } from '../core/errors.ts';
 import type { MeasureLookup } from '../core/measure-library.ts';
@@ -15,6 +23,7 @@ import {
   type OtherLeakageTest,
 } from '../core/schema.ts';
 import { createClient, findOrCreateClient, getClient } from './repositories/clients.ts';
+import { climateOfWeatherYear, homeWeatherYearOfClimate } from './home-file-weather.ts';
 import { createHome, getHome } from './repositories/homes.ts';
 import {
   addLeakageTest,
@@ -67,12 +76,26 @@ function withoutKind(test: OtherLeakageTest): HomeFile['leakageTest'] {
   return rest;
 }
 
+/** What an export writes besides the home itself. */
+export interface HomeFileExportOptions {
+  /**
+   * For a home planned hour by hour: the weather year of its climate, so the file can be
+   * evaluated and imported elsewhere (left out when the climate has no stored hours).
+   */
+  withWeatherYear?: boolean;
+}
+
 /**
  * The home as a home file.
  *
+ * @param options.withWeatherYear - write an hourly home's weather year into the file
  * @throws InputError naming each part the home still lacks (a draft cannot be exported)
  */
-export function exportHomeFile(read: ReadAccess, homeId: number): HomeFile {
+export function exportHomeFile(
+  read: ReadAccess,
+  homeId: number,
+  options: HomeFileExportOptions = {},
+): HomeFile {
   const home = getHome(read, homeId);
   const tests = listLeakageTests(read, homeId);
   const planTest = planTestOf(tests);
@@ -98,6 +121,10 @@ export function exportHomeFile(read: ReadAccess, homeId: number): HomeFile {
   const others = tests.filter((record) => record !== planTest).map((record) => record.test);
   if (others.length > 0) file.otherLeakageTests = others;
   file.measures = listMeasures(read, homeId).map((record) => withDefaults(record.measure, library));
+  if (options.withWeatherYear && data.hourlyWeather !== undefined && home.climateId !== null) {
+    const weatherYear = homeWeatherYearOfClimate(read, home.climateId);
+    if (weatherYear !== undefined) file.weatherYear = weatherYear;
+  }
   return parseHomeFile(file);
 }
 
@@ -113,6 +140,7 @@ export function dataOf(file: HomeFile): HomeData {
     leakageTest: _leakageTest,
     otherLeakageTests: _others,
     measures: _measures,
+    weatherYear: _weatherYear,
     ...data
   } = file;
   return data;
@@ -120,7 +148,8 @@ export function dataOf(file: HomeFile): HomeData {
 
 /**
  * Stores a home file as a new home, with its client (matched by name and email, or new),
- * tests and measures.
+ * tests and measures; a file with a `weatherYear` links the home to a stored climate with
+ * those hours (an identical one already stored, or a new one).
  *
  * @returns the new home's id
  * @throws InputError listing every problem of the file; nothing is written then
@@ -136,9 +165,14 @@ export function importHomeFile(
     clientId = options.newClient
       ? createClient(write, file.client)
       : findOrCreateClient(write, file.client);
+  const climateId =
+    file.weatherYear === undefined
+      ? null
+      : climateOfWeatherYear(write, file.climate, file.weatherYear);
   const homeId = createHome(write, {
     name: file.name,
     clientId,
+    ...(climateId === null ? {} : { climateId }),
     ...(file.address ? { address: file.address } : {}),
     isDemo: file.demo ?? false,
     ...(file.notes === undefined ? {} : { notes: file.notes }),

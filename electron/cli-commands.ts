@@ -7,6 +7,7 @@ import { existsSync } from 'node:fs';
 import { readFile, writeFile } from 'node:fs/promises';
 import { InputError } from '../core/errors.ts';
 import type { EvaluationReport } from '../core/report.ts';
+import { homeFileText } from '../core/weather/home-file-text.ts';
 import { backupTo, restoreFrom } from '../db/backup.ts';
 import { formatCsvProblem, type CsvProblem } from '../db/csv-import.ts';
 import { DEMO_HOMES, DEMO_PROGRAM_NAME } from '../db/demo/alder-creek.ts';
@@ -261,7 +262,8 @@ export async function runExport(parsed: Parsed, output: CliOutput): Promise<numb
       ? ask(context, 'homeFile.exportBundle', { id: homeId })
       : ask(context, 'homeFile.export', { id: homeId }),
   );
-  await writeFile(path, `${JSON.stringify(homeFile, null, 2)}\n`, 'utf8');
+  // An hourly home's weather year keeps each hour list on one line (a fraction of the size).
+  await writeFile(path, homeFileText(homeFile), 'utf8');
   output.out(`wrote ${path}`);
   return EXIT_OK;
 }

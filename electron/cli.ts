@@ -55,7 +55,8 @@ Usage:
                                             store a portfolio CSV, a home a row, all or none;
                                             prints how many (--json: their ids)
   sealwork export HOME_ID FILE [--photos]   write a stored home as a home file (--photos:
-                                            bundled with its photos)
+                                            bundled with its photos); an hourly home's file
+                                            carries its weather year
   sealwork export-csv FILE [--results]      write every home as a portfolio CSV, or (--results)
                                             a row of each home's leakage and plan figures
   sealwork portfolio [--json]               the summary: homes by fuel, town and decade built,

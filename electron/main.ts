@@ -19,6 +19,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join, normalize, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { parseArgs } from 'node:util';
+import { homeFileText } from '../core/weather/home-file-text.ts';
 import { backupTo, checkBackup, restoreFrom } from '../db/backup.ts';
 import { defaultProjectPath, openProject } from '../db/project.ts';
 import type { Store } from '../db/store.ts';
@@ -243,7 +244,7 @@ function exposeHomeFileSaving(store: Store): void {
         filters: [{ name: 'Sealwork home file', extensions: ['json'] }],
       });
       if (choice.canceled || !choice.filePath) return { ok: true, value: { saved: false } };
-      writeFileSync(choice.filePath, `${JSON.stringify(exported.value, null, 2)}\n`, 'utf8');
+      writeFileSync(choice.filePath, homeFileText(exported.value), 'utf8');
       return { ok: true, value: { saved: true } };
     }),
   );

@@ -12,7 +12,8 @@ import {
   weatherYearOf,
   type WeatherYearData,
 } from '../../core/weather.ts';
-import type { HomeFile } from '../../core/schema.ts';
+import { checkHomeFile, type HomeFile } from '../../core/schema.ts';
+import { weatherYearOfBlock } from '../../core/weather/weather-year-data.ts';
 import { exportHomesCsv, resultsCsv, type HomesCsvExport } from '../../db/csv-export.ts';
 import {
   commitCsvImport,
@@ -81,6 +82,25 @@ function withHourlyWeather(file: unknown): unknown {
   return 'hourlyWeather' in file ? file : { ...file, hourlyWeather: {} };
 }
 
+/**
+ * The year a home file carries (`weatherYear`, written by export for an hourly home), or
+ * undefined when it carries none or does not parse (evaluating it then lists the problems).
+ */
+function carriedWeatherYear(file: unknown) {
+  const checked = checkHomeFile(file);
+  if (!checked.ok || checked.home.weatherYear === undefined) return undefined;
+  return weatherYearOfBlock(checked.home.weatherYear);
+}
+
+/** A home file evaluated on a weather file's text, else on the year it carries, if any. */
+function evaluateFile(file: unknown, weatherText: string | undefined) {
+  if (weatherText !== undefined) {
+    return evaluateHome(withHourlyWeather(file), { weather: weatherYearOfText(weatherText) });
+  }
+  const weather = carriedWeatherYear(file);
+  return weather === undefined ? evaluateHome(file) : evaluateHome(file, { weather });
+}
+
 /** The largest portfolio CSV a request may carry, characters (10,000 homes fit easily). */
 const MAX_CSV_CHARS = 8 * 1024 * 1024;
 
@@ -122,19 +142,24 @@ export const fileAndPortfolioChannels = {
       ),
     }),
   }),
-  // A stored home as a home file with its photos, each as base64 with its SHA-256.
+  // A stored home as a home file with its photos, each as base64 with its SHA-256; an hourly
+  // home's file carries its weather year, as homeFile.export's does.
   'homeFile.exportBundle': channel({
     request: byId,
     response: recordOf<HomeFileBundle>(),
     handle: ({ store }, request) =>
       store.read((read) => exportHomeFileWithAttachments(read, request.id)),
   }),
+  // An hourly home's file carries the weather year of its climate (`weatherYear`), so it
+  // can be evaluated and imported on its own elsewhere.
   'homeFile.export': channel({
     request: byId,
     response: recordOf<HomeFile>(),
-    handle: ({ store }, request) => store.read((read) => exportHomeFile(read, request.id)),
+    handle: ({ store }, request) =>
+      store.read((read) => exportHomeFile(read, request.id, { withWeatherYear: true })),
   }),
-  // With `weatherText` (an EPW or TMY3 file) the home is planned hour by hour on that year.
+  // With `weatherText` (an EPW or TMY3 file) the home is planned hour by hour on that year;
+  // without it, a file that carries its weather year (`weatherYear`) is planned on that.
   'homeFile.evaluate': channel({
     request: z.strictObject({
       file: z.unknown(),
@@ -143,12 +168,7 @@ export const fileAndPortfolioChannels = {
     }),
     response: recordOf<EvaluationWithChoices>(),
     handle: (_context, { file, weatherText, ...request }) =>
-      reportWithChoices(
-        weatherText === undefined
-          ? evaluateHome(file)
-          : evaluateHome(withHourlyWeather(file), { weather: weatherYearOfText(weatherText) }),
-        choicesOf(request),
-      ),
+      reportWithChoices(evaluateFile(file, weatherText), choicesOf(request)),
   }),
   'portfolio.summary': channel({
     request: nothing,

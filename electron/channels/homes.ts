@@ -98,7 +98,8 @@ export const homeChannels = {
     response: byId,
     handle: ({ store }, request) => ({
       id: store.write((write) => {
-        const file = exportHomeFile(write, request.id);
+        // An hourly home's year comes along, so the copy links to the same stored climate.
+        const file = exportHomeFile(write, request.id, { withWeatherYear: true });
         const copy = importHomeFile(write, { ...file, name: request.name, demo: false });
         // Bills are not part of the home file; the copy keeps them all the same.
         copyBills(write, request.id, copy);
