@@ -177,6 +177,20 @@ describe('a home’s job in chromium', { timeout: TEST_TIMEOUT_MS * 2 }, () => {
     );
     expect(await axeViolations(page)).toEqual([]);
     await page.screenshot({ path: join(SCREENSHOTS, 'job-history.png'), fullPage: true });
+    // A half-typed move outlasts the row being closed and opened again.
+    await choose(page, moveTo, 'onHold');
+    await typeInto(page, reason, 'Waiting on the roofer');
+    const row = page.locator(`button[data-home-id="${home.id}"]`);
+    await press(page, row);
+    await panel.waitFor({ state: 'detached' });
+    await press(page, row);
+    await panel.getByText(/since Mar 6, 2026/).waitFor();
+    expect(await moveTo.inputValue()).toBe('onHold');
+    expect(await reason.inputValue()).toBe('Waiting on the roofer');
+    expect(storedEntries(home.id)).toHaveLength(3);
+    await typeInto(page, reason, '');
+    await choose(page, moveTo, 'approved');
+
     // At 1024 × 768 nothing of the panel runs past the window (WCAG 1.4.10 Reflow, from memory).
     await page.setViewportSize({ width: 1024, height: 768 });
     const widths = await page.evaluate(() => ({

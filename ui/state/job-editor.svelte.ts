@@ -2,7 +2,9 @@
  * A home's Job panel: where the job stands and its history (jobs.history), and the form that
  * moves it on (jobs.changeStatus). What is typed stays in the form until the store accepts
  * it; a refusal's words go beside the box they name (the status, the date, who, the reason).
- * "By" starts as the name in the settings (settings.get userName), the date as today.
+ * "By" starts as the name in the settings (settings.get userName), the date as today. One
+ * editor per home lives as long as the page (`jobEditorFor`), so a half-typed move survives
+ * its row being closed and opened again.
  */
 import { call } from '../bridge.ts';
 import {
@@ -58,12 +60,15 @@ export class JobEditor {
     this.draft.at = localIsoDate(today);
   }
 
-  /** Reads the job's history and the name "By" starts with. */
+  /** Reads the job's history and the name "By" starts with (a draft already typed is kept). */
   async load(): Promise<void> {
     const [history, settings] = await Promise.all([
       call('jobs.history', { homeId: this.homeId }),
       call('settings.get', {}),
     ]);
+    // The word on a change saved earlier is news no more when the panel opens again (read
+    // after the wait, so an effect that calls this does not track the status).
+    if (this.status.kind === 'saved') this.status = { kind: 'idle' };
     if (settings.ok && this.draft.by === '') this.draft.by = settings.value.userName;
     if (!history.ok) {
       this.failure = history.error.message;
@@ -135,4 +140,16 @@ export class JobEditor {
     this.#show(reply.value.history);
     return true;
   }
+}
+
+const editors = new Map<number, JobEditor>();
+
+/** The Job panel's editor of a home, made on first use and kept while the page lives. */
+export function jobEditorFor(homeId: number): JobEditor {
+  let editor = editors.get(homeId);
+  if (editor === undefined) {
+    editor = new JobEditor(homeId);
+    editors.set(homeId, editor);
+  }
+  return editor;
 }
