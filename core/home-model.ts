@@ -19,6 +19,7 @@ import {
   ventilationFanNeedCfm,
 } from './infiltration/ashrae-622.ts';
 import type { LeakageFit } from './leakage.ts';
+import type { Aim2SeasonPressures } from './weather/aim2-hourly.ts';
 import { LEAK_LOCATIONS, type HomeFile, type LeakLocation, type LeakShares } from './schema.ts';
 import { seasonalAirflowMethod } from './seasonal-airflow.ts';
 
@@ -60,6 +61,8 @@ export interface HourlyClimate {
   seasons: SeasonTotals;
   /** Natural infiltration of a leakage state: each season's mean weighted as its load. */
   airflowOf(leakage: LeakageByLocation): SeasonalAirflowCfm;
+  /** AIM-2 only: the seasons' hourly pressures and weights, worked out when asked for. */
+  aim2Pressures?: () => Aim2SeasonPressures;
 }
 
 /** The 62.2 check for one leakage level. */
@@ -81,6 +84,8 @@ export interface HomeModel {
   readonly energyContext: EnergyContext;
   /** Degree days (or hours) the year's loads are summed over. */
   readonly climateBasis: ClimateBasis;
+  /** An AIM-2 home planned hour by hour: its seasons' hourly pressures (null otherwise). */
+  readonly hourlyAim2Pressures: (() => Aim2SeasonPressures) | null;
   /** Fan flow the house already runs continuously, cfm. */
   readonly existingFanCfm: number;
   /** Natural infiltration of a leakage state, by season. */
@@ -265,6 +270,7 @@ export function buildHomeModel(
     floorCfm50: Math.min(home.leakageFloorCfm50 ?? 0, testIn.cfm50),
     energyContext,
     climateBasis,
+    hourlyAim2Pressures: hourly?.aim2Pressures ?? null,
     existingFanCfm,
     airflow: airflowOf,
     energy: (airflow, ventilationFanKwh = 0) =>

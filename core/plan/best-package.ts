@@ -49,15 +49,16 @@
  * range of a year's dollars, not the flow's slope). That bound is looser than the linear one
  * (interval bounds widen with the box, and its slopes have no bound where the box reaches a
  * distribution at which the interval rules cannot bound AIM-2's derivative), so AIM-2
- * searches stay slower. Hour-by-hour homes on the linear methods use the linear bound (each season's mean
- * flows, the latent one included, stay linear in CFM50); a home on aim2 worked hour by hour
- * has no proven bound and is searched with the other cuts only: still exact, but its time
- * grows as 2^n.
+ * searches stay slower. Hour-by-hour homes on the linear methods use the linear bound (each
+ * season's mean flows, the latent one included, stay linear in CFM50); on aim2 the AIM-2
+ * bound, its seasons' hours gathered in bins (best-package/aim2-hourly-bins.ts).
  * test/core/best-package.test.ts and best-package-aim2.test.ts check the search against brute
  * force (degree-day, AIM-2 and hour-by-hour homes) and each condition the bounds rest on;
  * best-package-interval.test.ts checks the interval rules; best-package-aim2-cuts.test.ts the
  * AIM-2 refinements (share cuts, one-location falls, raised floors, the budget's reach), and
- * brute force on homes with most of their leakage in the ceiling.
+ * brute force on homes with most of their leakage in the ceiling;
+ * best-package-aim2-hourly.test.ts the bins of hours; best-package-path-factors.test.ts the
+ * bound by parts.
  */
 import { savingsToInvestmentRatio, simplePaybackYears } from '../economics/index.ts';
 import { InputError } from '../errors.ts';

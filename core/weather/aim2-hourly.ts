@@ -38,7 +38,7 @@ const KELVIN_MINUS_CELSIUS = 273.15;
 const TEST_PRESSURE_PA = 50;
 
 /** A season's hours for AIM-2: the groups with both drivers, and the single-driver sums. */
-interface Aim2Season {
+export interface Aim2Season {
   /** Groups with both a stack and a wind pressure. */
   count: number;
   stackPa: Float64Array;
@@ -123,6 +123,12 @@ function aim2Season(season: SeasonHours, site: Site): Aim2Season {
   };
 }
 
+/** Both seasons' pressures (cooling null without cooling). */
+export interface Aim2SeasonPressures {
+  heating: Aim2Season;
+  cooling: Aim2Season | null;
+}
+
 /** The state's roots and factors that every hour's flow shares. */
 interface StateTerms {
   stackRoot: number;
@@ -172,6 +178,35 @@ function seasonSums(
 }
 
 /**
+ * Each season's stack and wind pressures hour by hour, gathered as `aim2Hourly` works on them
+ * (groups of hours with both drivers, the single-driver sums); the best package's AIM-2 bound
+ * reads them too (core/plan/best-package/aim2-hourly-bins.ts).
+ */
+export function aim2SeasonPressures(
+  home: HomeFile,
+  exponentN: number,
+  year: WeatherYear,
+  seasons: { heating: SeasonHours; cooling: SeasonHours | null },
+): Aim2SeasonPressures {
+  const { house } = home;
+  const site: Site = {
+    heightFt: house.heightFt,
+    sitePressurePa: standardPressurePa(year.elevationFt * METERS_PER_FOOT),
+    eaveWindPerMph:
+      METERS_PER_SECOND_PER_MPH *
+      terrainWindSpeedRatio({
+        heightFt: house.heightFt,
+        ...(house.siteTerrain === undefined ? {} : { siteTerrain: house.siteTerrain }),
+      }),
+    exponentN,
+  };
+  return {
+    heating: aim2Season(seasons.heating, site),
+    cooling: seasons.cooling ? aim2Season(seasons.cooling, site) : null,
+  };
+}
+
+/**
  * AIM-2 hour by hour as a function of the leakage state.
  *
  * @param home - the parsed home file (house: height, foundation, shelter, terrain, flue)
@@ -190,19 +225,7 @@ export function aim2Hourly(
   const stackFactorOf = stackFactorFunction(n, house.flueHeightFt, house.heightFt);
   const windFactorOf = windFactorFunction(n, house.foundation);
   const shelterOf = shelterFunction(house.shelterClass);
-  const site: Site = {
-    heightFt: house.heightFt,
-    sitePressurePa: standardPressurePa(year.elevationFt * METERS_PER_FOOT),
-    eaveWindPerMph:
-      METERS_PER_SECOND_PER_MPH *
-      terrainWindSpeedRatio({
-        heightFt: house.heightFt,
-        ...(house.siteTerrain === undefined ? {} : { siteTerrain: house.siteTerrain }),
-      }),
-    exponentN: n,
-  };
-  const heating = aim2Season(seasons.heating, site);
-  const cooling = seasons.cooling ? aim2Season(seasons.cooling, site) : null;
+  const { heating, cooling } = aim2SeasonPressures(home, exponentN, year, seasons);
   const inverseN = 1 / n;
   const testPressureToN = TEST_PRESSURE_PA ** n;
   // Reused by every state: the returned flows are the only allocation of a call.

@@ -39,7 +39,7 @@ import { lblStackCoefficientIp, lblWindCoefficientIp } from '../infiltration/lbl
 import { nFactorInfiltration } from '../infiltration/n-factor.ts';
 import { elaIn2 } from '../leakage.ts';
 import type { HomeFile } from '../schema.ts';
-import { aim2Hourly } from './aim2-hourly.ts';
+import { aim2Hourly, aim2SeasonPressures, type Aim2SeasonPressures } from './aim2-hourly.ts';
 import { totalCfm50Of, weightedMean, type HourlyAirflowCfm } from './hourly-flows.ts';
 import { seasonHoursOf, type SeasonHours } from './season-hours.ts';
 import {
@@ -128,6 +128,24 @@ export function hourlyAirflowMethod(
     case 'aim2':
       return aim2Hourly(home, exponentN, year, seasonHoursOf(year, basis, hasCooling));
   }
+}
+
+/**
+ * An AIM-2 home's seasons as its hourly flow works on them (aim2-hourly.ts): the groups of
+ * hours' stack and wind pressures and their weights, for the best package's bound.
+ */
+export function hourlyAim2Pressures(
+  home: HomeFile,
+  exponentN: number,
+  year: WeatherYear,
+  basis: HourlyBasis,
+): Aim2SeasonPressures {
+  return aim2SeasonPressures(
+    home,
+    exponentN,
+    year,
+    seasonHoursOf(year, basis, Boolean(home.cooling)),
+  );
 }
 
 /**

@@ -8,6 +8,7 @@ import type { HourlyClimate } from '../home-model.ts';
 import type { HomeFile } from '../schema.ts';
 import {
   DEFAULT_HOURLY_BASIS,
+  hourlyAim2Pressures,
   hourlyAirflowMethod,
   hourlySeasons,
   indoorHumidityRatio,
@@ -79,5 +80,8 @@ export function hourlyClimateOf(
       elevationFt: siteYear.elevationFt,
     },
     airflowOf: hourlyAirflowMethod(home, exponentN, siteYear, basis),
+    ...(home.infiltrationMethod === 'aim2'
+      ? { aim2Pressures: () => hourlyAim2Pressures(home, exponentN, siteYear, basis) }
+      : {}),
   };
 }

@@ -20,14 +20,14 @@ import {
 } from '../../core/plan/best-package/bounds-aim2.ts';
 import type { LiveMeasure } from '../../core/plan/best-package/remaining-measures.ts';
 import { buildPriceBook } from '../../core/plan/prices.ts';
-import { LEAK_LOCATIONS, type HomeFileInput, type LeakLocation } from '../../core/schema.ts';
-import type { WeatherYear } from '../../core/weather/hourly-airflow.ts';
+import { LEAK_LOCATIONS, type HomeFileInput } from '../../core/schema.ts';
 import {
   bestByBruteForce,
   everyPackage,
   measuresInPlanOrder,
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
+import { boxBelow, stateIn, swingingYear, uniformFrom } from '../_lib/aim2-states.ts';
 import { generatedPackageHomes, packageQueriesFor } from '../_lib/package-cases.ts';
 
 const SEED = 20261202;
@@ -83,37 +83,6 @@ describe('best package on AIM-2 homes: equals brute force', () => {
     expect(cut).toBeGreaterThan(HOMES / 2);
   }, 300_000);
 });
-
-/** A seeded uniform [0, 1) generator (an LCG: the constants of Numerical Recipes). */
-function uniformFrom(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (Math.imul(state, 1_664_525) + 1_013_904_223) >>> 0;
-    return state / 2 ** 32;
-  };
-}
-
-/** A random box below a state: each location lowered by up to `depth` of what it holds. */
-function boxBelow(leakage: LeakageByLocation, next: () => number, depth: number) {
-  const lower = { ...leakage };
-  for (const location of LEAK_LOCATIONS) {
-    if (next() < 0.6) lower[location] = leakage[location] * (1 - depth * next());
-  }
-  return lower;
-}
-
-/** A state inside a box. */
-function stateIn(
-  lower: LeakageByLocation,
-  upper: LeakageByLocation,
-  next: () => number,
-): Record<LeakLocation, number> {
-  const state = { ...upper };
-  for (const location of LEAK_LOCATIONS) {
-    state[location] = lower[location] + (upper[location] - lower[location]) * next();
-  }
-  return state;
-}
 
 describe('the AIM-2 bound: the conditions it rests on', () => {
   const homes = generatedHomes(['aim2'], 120, SEED + 1, 8);
@@ -241,7 +210,7 @@ describe('the AIM-2 bound: the conditions it rests on', () => {
     expect(negative).toBeGreaterThan(0);
   });
 
-  it('hour-by-hour AIM-2 homes are not covered by the AIM-2 bound', () => {
+  it('hour-by-hour AIM-2 homes are covered too, through their hours in bins', () => {
     const [first] = generatedHomes(['aim2'], 1, SEED + 4, 6);
     if (!first) throw new Error('no home');
     const evaluation = evaluateHome(
@@ -249,30 +218,10 @@ describe('the AIM-2 bound: the conditions it rests on', () => {
       { weather: swingingYear() },
     );
     expect(evaluation.model.climateBasis.kind).toBe('hourly');
-    expect(aim2Bounded(evaluation.model)).toBe(false);
-    expect(bestPackage(evaluation, { budgetUsd: Infinity }).boundsUsed).toBe(false);
+    expect(aim2Bounded(evaluation.model)).toBe(true);
+    expect(bestPackage(evaluation, { budgetUsd: Infinity }).boundsUsed).toBe(true);
   });
 });
-
-const HOURS = 8760;
-
-/** A year that swings by season and by day (invented for the test, not a place's weather). */
-function swingingYear(): WeatherYear {
-  return {
-    name: 'Swinging test year',
-    elevationFt: 0,
-    outdoorF: Float64Array.from(
-      { length: HOURS },
-      (_, hour) =>
-        50 - 28 * Math.cos((2 * Math.PI * hour) / HOURS) + 9 * Math.sin((2 * Math.PI * hour) / 24),
-    ),
-    windMph: Float64Array.from({ length: HOURS }, (_, hour) => 6 + 4 * Math.sin(hour / 37)),
-    humidityRatio: Float64Array.from(
-      { length: HOURS },
-      (_, hour) => 0.008 - 0.005 * Math.cos((2 * Math.PI * hour) / HOURS),
-    ),
-  };
-}
 
 describe('the energy cells of hour-by-hour homes', () => {
   it('bound the model’s own energy from below and its fall per CFM50 from above', () => {
@@ -329,9 +278,10 @@ describe('the energy cells of hour-by-hour homes', () => {
 });
 
 describe('best package on hour-by-hour homes: equals brute force', () => {
-  it('for the methods linear in CFM50 (bounded) and for AIM-2 (searched without a bound)', () => {
+  it('for the methods linear in CFM50 and for AIM-2, every one bounded', () => {
     // Hour by hour, nFactor, lblBasic and ashrae622 stay linear in CFM50 every hour, so the
-    // energy table of energy-cells.ts still applies; brute force is the check.
+    // energy table of energy-cells.ts still applies, and AIM-2's box bounds take the hours in
+    // bins (aim2-hourly-bins.ts); brute force is the check.
     const weather = swingingYear();
     let compared = 0;
     const methods = new Set<string>();
@@ -340,7 +290,7 @@ describe('best package on hour-by-hour homes: equals brute force', () => {
         const evaluation = evaluateHome({ ...home, hourlyWeather: {} }, { weather });
         expect(evaluation.model.climateBasis.kind).toBe('hourly');
         const found = bestPackage(evaluation, { budgetUsd: Infinity });
-        expect(found.boundsUsed).toBe(method !== 'aim2');
+        expect(found.boundsUsed).toBe(true);
         compared += compareWithBruteForce(
           evaluation,
           packageQueriesFor(evaluation, budgetFraction, kind),

@@ -22,6 +22,11 @@
  * the box has share 0; and, the shares summing to 1, each at most 1 less the others' lows and
  * at least 1 less their highs. R's range is cut to 1 − σ_y.lo likewise (`withinSumOfShares`).
  * A box with leakage at one location alone has G constant (`fallsAtOne`).
+ * Hour by hour (a home with `hourlyWeather`) a season's flow is Σ over its hours of the same
+ * formula with each hour's pressures, weighted: G is then a weighted sum over bins of hours,
+ * each bin's pressures a range (aim2-hourly-bins.ts), plus the calm and windless hours'
+ * single-driver terms; its derivatives are the same sums, so D_l bounds them too. The latent
+ * load's mean flow, weighted by excess humidity, is a third season (`latent`).
  * Where a formula leaves its domain over the box (a negative f_s or f_w, 2 − R reaching 0),
  * no bound is given (null) and the caller cuts nothing.
  */
@@ -32,9 +37,17 @@ import { aim2ShelterFactor, terrainWindSpeedRatio } from '../../infiltration/aim
 import { LEAK_LOCATIONS, type HomeFile, type LeakLocation } from '../../schema.ts';
 import { DEFAULT_INDOOR_COOLING_F, DEFAULT_INDOOR_HEATING_F } from '../../seasonal-airflow.ts';
 import {
+  HOURLY_BINS,
+  degreeDayDrivers,
+  hourlyDrivers,
+  type DriverBin,
+  type SeasonDrivers,
+} from './aim2-hourly-bins.ts';
+import {
   abs,
   add,
   constant,
+  constantIn,
   div,
   iAdd,
   iMul,
@@ -80,6 +93,11 @@ export interface Aim2Box {
   heating: SeasonBox;
   /** Null when the home has no cooling season flow (the model's cooling flow is 0). */
   cooling: SeasonBox | null;
+  /**
+   * Hour by hour, the latent load's own mean flow (null when it is 0); absent on degree days,
+   * where the cooling flow carries the latent load too.
+   */
+  latent?: SeasonBox | null;
 }
 
 /** A leakage box: each location from lower to upper, CFM50. */
@@ -92,7 +110,10 @@ export interface LeakageBox {
 export type Aim2BoxBounds = (box: LeakageBox) => Aim2Box | null;
 
 /** Builds the box bounds of a home on the enhanced model (degree-day seasons). */
-export function aim2BoxBounds(model: HomeModel): Aim2BoxBounds {
+export function aim2BoxBounds(
+  model: HomeModel,
+  binsPerSeason: number = HOURLY_BINS,
+): Aim2BoxBounds {
   const { house, climate } = model.home;
   const n = model.exponentN;
   const sitePressurePa = standardPressurePa(climate.elevationFt * METERS_PER_FOOT);
@@ -117,9 +138,23 @@ export function aim2BoxBounds(model: HomeModel): Aim2BoxBounds {
       windPressurePa: (density * eaveWindMps * eaveWindMps) / 2,
     };
   };
-  const heating = climate.heatingSeason ? termsOf(climate.heatingSeason, 'heating') : null;
-  const cooling =
-    model.home.cooling && climate.coolingSeason ? termsOf(climate.coolingSeason, 'cooling') : null;
+  const driversOf = (terms: SeasonTerms | null) =>
+    terms === null ? null : degreeDayDrivers(terms.stackPressurePa, terms.windPressurePa);
+  const hourly = model.hourlyAim2Pressures?.() ?? null;
+  const heating: SeasonDrivers | null = hourly
+    ? hourlyDrivers(hourly.heating, n, 'sensible', binsPerSeason)
+    : driversOf(climate.heatingSeason ? termsOf(climate.heatingSeason, 'heating') : null);
+  const coolingHours = model.home.cooling ? (hourly?.cooling ?? null) : null;
+  const cooling: SeasonDrivers | null = hourly
+    ? coolingHours && hourlyDrivers(coolingHours, n, 'sensible', binsPerSeason)
+    : driversOf(
+        model.home.cooling && climate.coolingSeason
+          ? termsOf(climate.coolingSeason, 'cooling')
+          : null,
+      );
+  // Hour by hour the latent load has its own mean flow; on degree days it is the cooling one.
+  const latent =
+    hourly && coolingHours ? hourlyDrivers(coolingHours, n, 'latent', binsPerSeason) : null;
   const factors = factorFunctions(model);
   const perCfm50 = 1 / TEST_PRESSURE_PA ** n;
 
@@ -130,7 +165,7 @@ export function aim2BoxBounds(model: HomeModel): Aim2BoxBounds {
     const flue = variable(2, shares.flue);
     const stackFactor = factors.stackFactor(ceiling, floor, flue);
     const windFactor = factors.windFactor(ceiling, floor, flue);
-    if (stackFactor === null || windFactor === null || heating === null) return null;
+    if (stackFactor === null || windFactor === null) return null;
     const stackRoot = pow(stackFactor, 1 / n);
     const windRoot = pow(windFactor, 1 / n);
     // √(S·W) as √S·√W, each from its factor: where f_w (or f_s) tends to 0 the root's slope is
@@ -144,29 +179,61 @@ export function aim2BoxBounds(model: HomeModel): Aim2BoxBounds {
       scale(flue, factors.flueShelter - factors.wallShelter),
       factors.wallShelter,
     );
-    const seasonOf = (terms: SeasonTerms): SeasonBox | null => {
-      const s = scale(stackRoot, terms.stackPressurePa);
-      const w = mul(windRoot, scale(square(shelter), terms.windPressurePa));
+    /** G over a bin of hours (or a degree-day season's one pair of pressures). */
+    const binFlow = (bin: DriverBin): Dual | null => {
+      const point = bin.stackPa.lo === bin.stackPa.hi && bin.windPa.lo === bin.windPa.hi;
+      const byPressure = (quantity: Dual, pressure: Interval, root: boolean) => {
+        const range = root ? { lo: Math.sqrt(pressure.lo), hi: Math.sqrt(pressure.hi) } : pressure;
+        return point ? scale(quantity, range.lo) : mul(quantity, constantIn(range));
+      };
+      const s = byPressure(stackRoot, bin.stackPa, false);
+      const w = mul(windRoot, byPressure(square(shelter), bin.windPa, false));
       const root = mul(
-        scale(stackHalf, Math.sqrt(terms.stackPressurePa)),
-        scale(mul(windHalf, shelter), Math.sqrt(terms.windPressurePa)),
+        byPressure(stackHalf, bin.stackPa, true),
+        byPressure(mul(windHalf, shelter), bin.windPa, true),
       );
       const inner = add(add(s, w), scale(root, STACK_WIND_INTERACTION_B));
       // √(S·W) ≤ (S + W)/2, so the sum is at least 5/6 of S + W.
       inner.v = { lo: Math.max(inner.v.lo, (5 / 6) * (s.v.lo + w.v.lo)), hi: inner.v.hi };
       const g = pow(inner, n);
       if (g === null || !(g.v.lo >= 0) || Number.isNaN(g.v.hi)) return null;
+      return bin.weight === 1 ? g : scale(g, bin.weight);
+    };
+    const seasonOf = (drivers: SeasonDrivers): SeasonBox | null => {
+      let g: Dual | null = null;
+      for (const bin of drivers.bins) {
+        const part = binFlow(bin);
+        if (part === null) return null;
+        g = g === null ? part : add(g, part);
+      }
+      if (drivers.stackOnly > 0) {
+        const part = scale(stackFactor, drivers.stackOnly);
+        g = g === null ? part : add(g, part);
+      }
+      if (drivers.windOnly > 0) {
+        const shelterPower = pow(shelter, 2 * n);
+        if (shelterPower === null) return null;
+        const part = scale(mul(windFactor, shelterPower), drivers.windOnly);
+        g = g === null ? part : add(g, part);
+      }
+      if (g === null || !(g.v.lo >= 0) || Number.isNaN(g.v.hi)) return null;
       return seasonBox(g, [shares.ceiling, shares.floor, shares.flue], perCfm50);
     };
+    if (heating === null) return null;
     const heatingBox = seasonOf(heating);
     const coolingBox = cooling === null ? null : seasonOf(cooling);
+    const latentBox = latent === null ? null : seasonOf(latent);
     if (heatingBox === null || (cooling !== null && coolingBox === null)) return null;
+    if (latent !== null && latentBox === null) return null;
     const only = onlyLocation(box);
     if (only !== null) {
-      heatingBox.fallPerCfm50 = fallsAtOne(only, heatingBox);
-      if (coolingBox !== null) coolingBox.fallPerCfm50 = fallsAtOne(only, coolingBox);
+      for (const season of [heatingBox, coolingBox, latentBox]) {
+        if (season !== null) season.fallPerCfm50 = fallsAtOne(only, season);
+      }
     }
-    return { heating: heatingBox, cooling: coolingBox };
+    return hourly
+      ? { heating: heatingBox, cooling: coolingBox, latent: latentBox }
+      : { heating: heatingBox, cooling: coolingBox };
   };
 }
 

@@ -21,29 +21,47 @@ const WATTS_PER_KILOWATT = 1000;
 export interface Aim2Bound {
   model: HomeModel;
   box: Aim2BoxBounds;
-  /** p_h·u_h, p_e·u_c and p_e·β: dollars a year per cfm. */
+  /**
+   * p_h·u_h, p_e·u_c and p_e·β: dollars a year per cfm; hour by hour the cooling one is the
+   * sensible load's and p_e·u_l the latent load's (0 on degree days, where u_c holds both).
+   */
   heatingUsdPerCfm: number;
   coolingUsdPerCfm: number;
+  latentUsdPerCfm: number;
   fanUsdPerCfm: number;
   balanced: boolean;
 }
 
-/** Whether a model's home is one the AIM-2 bound covers: aim2 on degree-day seasons. */
+/**
+ * Whether a model's home is one the AIM-2 bound covers: aim2 on degree-day seasons, or hour
+ * by hour with its seasons' pressures at hand (aim2-hourly-bins.ts).
+ */
 export function aim2Bounded(model: HomeModel): boolean {
-  return model.home.infiltrationMethod === 'aim2' && model.climateBasis.kind === 'degreeDays';
+  if (model.home.infiltrationMethod !== 'aim2') return false;
+  return model.climateBasis.kind === 'degreeDays' || model.hourlyAim2Pressures !== null;
 }
 
 /** The AIM-2 bound of a home it covers. */
 export function buildAim2Bound(model: HomeModel, prices: PriceBook): Aim2Bound {
   const electricityPrice = prices.electricity?.usdPerUnitFloat ?? 0;
   const fanWattsPerCfm = model.ventilatedAirflow(model.testIn).fanWattsPerCfm;
+  const hourly = model.climateBasis.kind === 'hourly';
   return {
     model,
     box: aim2BoxBounds(model),
     heatingUsdPerCfm:
       model.energy({ heatingCfm: 1, coolingCfm: 0 }).heatingFuelUnits *
       prices.heating.usdPerUnitFloat,
-    coolingUsdPerCfm: model.energy({ heatingCfm: 0, coolingCfm: 1 }).coolingKwh * electricityPrice,
+    coolingUsdPerCfm:
+      model.energy(
+        hourly
+          ? { heatingCfm: 0, coolingCfm: 1, coolingLatentCfm: 0 }
+          : { heatingCfm: 0, coolingCfm: 1 },
+      ).coolingKwh * electricityPrice,
+    latentUsdPerCfm: hourly
+      ? model.energy({ heatingCfm: 0, coolingCfm: 0, coolingLatentCfm: 1 }).coolingKwh *
+        electricityPrice
+      : 0,
     fanUsdPerCfm: ((fanWattsPerCfm * HOURS_PER_YEAR) / WATTS_PER_KILOWATT) * electricityPrice,
     balanced: model.home.ventilation?.fanType === 'balanced',
   };
@@ -184,24 +202,30 @@ export function stepSlopes(
   };
   const heatingShares = sharesOf(box.heating);
   const coolingShares = sharesOf(box.cooling);
+  const latentShares = sharesOf(box.latent ?? null);
   const heating = {} as Record<LeakLocation, number>;
   const electricity = {} as Record<LeakLocation, number>;
   for (const location of LEAK_LOCATIONS) {
     const heatingFall = Math.max(0, box.heating.fallPerCfm50[location]);
     const coolingFall = Math.max(0, box.cooling?.fallPerCfm50[location] ?? 0);
+    const latentFall = Math.max(0, box.latent?.fallPerCfm50[location] ?? 0);
     const heatingSlope =
       bound.heatingUsdPerCfm * (times(heatingShares.air, heatingFall) - heatingShares.fan * rise);
     const electricitySlope =
       times(
         bound.coolingUsdPerCfm,
         times(coolingShares.air, coolingFall) - coolingShares.fan * rise,
-      ) -
+      ) +
+      times(bound.latentUsdPerCfm, times(latentShares.air, latentFall) - latentShares.fan * rise) -
       bound.fanUsdPerCfm * rise;
     heating[location] =
       heatingSlope + ENERGY_MARGIN * bound.heatingUsdPerCfm * (heatingFall + rise);
     electricity[location] =
       electricitySlope +
-      ENERGY_MARGIN * (bound.coolingUsdPerCfm * (coolingFall + rise) + bound.fanUsdPerCfm * rise);
+      ENERGY_MARGIN *
+        (times(bound.coolingUsdPerCfm, coolingFall + rise) +
+          times(bound.latentUsdPerCfm, latentFall + rise) +
+          bound.fanUsdPerCfm * rise);
   }
   return { heating, electricity };
 }

@@ -75,8 +75,10 @@
  * derivative no bound, e.g. a box in which every leak but the ceiling's may be sealed), the
  * terms built on slopes cut nothing and (i) is left; deeper nodes and narrower ranges have
  * smaller boxes.
- * Hour-by-hour homes on AIM-2 are not covered (their flow is a load-weighted mean over the
- * hours, not these seasons' formula): they are searched without this bound.
+ * Hour by hour an AIM-2 home's flow is a load-weighted mean over the hours; aim2-box.ts bounds
+ * it over the box from the hours gathered in bins (aim2-hourly-bins.ts), and the latent load,
+ * which then has its own mean flow, enters the electricity bounds like the cooling one
+ * (aim2-steps.ts, `latentUsdPerCfm`); everything above holds as it stands.
  */
 import { LEAK_LOCATIONS, type LeakLocation } from '../../schema.ts';
 import type { Aim2Box, SeasonBox } from './aim2-box.ts';
@@ -165,6 +167,9 @@ export function subtreeMayWinAim2(
   );
   if (box === null) return true;
   const natural = bound.model.airflow(node.leakage);
+  // Hour by hour the latent load's own mean flow (aim2-box.ts `latent`; 0 on degree days,
+  // where bound.latentUsdPerCfm is 0).
+  const naturalLatentCfm = natural.coolingLatentCfm ?? 0;
   const spreads = factorSpreads(measures);
   const rounding = HALF_CENT_USD * measures.length;
   const slack =
@@ -275,6 +280,10 @@ export function subtreeMayWinAim2(
       finalElectricityUsd,
       (bound.coolingUsdPerCfm *
         combine(flowLow(rangeBox.cooling, natural.coolingCfm, lo, 0, most), fanAtX) +
+        times(
+          bound.latentUsdPerCfm,
+          combine(flowLow(rangeBox.latent ?? null, naturalLatentCfm, lo, 0, most), fanAtX),
+        ) +
         bound.fanUsdPerCfm * (fanAtX - model.existingFanCfm)) *
         (1 - ENERGY_MARGIN),
     );
@@ -292,6 +301,7 @@ export function subtreeMayWinAim2(
         least: electricityLeast,
         most:
           (bound.coolingUsdPerCfm * combine(flowMost(rangeBox.cooling), fanMost) +
+            times(bound.latentUsdPerCfm, combine(flowMost(rangeBox.latent ?? null), fanMost)) +
             bound.fanUsdPerCfm * (fanMost - model.existingFanCfm)) *
           (1 + ENERGY_MARGIN),
       },
@@ -321,9 +331,15 @@ export function subtreeMayWinAim2(
       flowLow(sums.box.cooling, natural.coolingCfm, lo, least, most),
       fanCfm,
     );
+    const latentCfm = combine(
+      flowLow(sums.box.latent ?? null, naturalLatentCfm, lo, least, most),
+      fanCfm,
+    );
     const heatingLow = bound.heatingUsdPerCfm * heatingCfm * (1 - ENERGY_MARGIN);
     const electricityLow =
-      (bound.coolingUsdPerCfm * coolingCfm + bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
+      (bound.coolingUsdPerCfm * coolingCfm +
+        times(bound.latentUsdPerCfm, latentCfm) +
+        bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
       (1 - ENERGY_MARGIN);
     // (i): the dollars of every state on the way, for the bound by parts.
     const dollars = wayDollars(sums.box, lo, most, heatingLow, electricityLow);

@@ -83,6 +83,11 @@ export function constant(value: number): Dual {
   return { v: { lo: value, hi: value }, d: [ZERO, ZERO, ZERO] };
 }
 
+/** A quantity constant over the box but known only to lie in a range (no derivative). */
+export function constantIn(range: Interval): Dual {
+  return { v: range, d: [ZERO, ZERO, ZERO] };
+}
+
 /** The box's variable `index` (0 ceiling, 1 floor, 2 flue share) over [lo, hi]. */
 export function variable(index: 0 | 1 | 2, range: Interval): Dual {
   const one: Interval = { lo: 1, hi: 1 };
