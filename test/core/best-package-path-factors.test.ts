@@ -13,6 +13,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { evaluateHome } from '../../core/evaluate.ts';
 import { bestPackage } from '../../core/plan/best-package.ts';
+import { fanSplitPvBoundUsd } from '../../core/plan/best-package/fan-split.ts';
 import { pathFactorPvBoundUsd } from '../../core/plan/best-package/path-factors.ts';
 import type { LiveMeasure } from '../../core/plan/best-package/remaining-measures.ts';
 import type { HomeFileInput } from '../../core/schema.ts';
@@ -125,6 +126,87 @@ describe('the bound by parts', () => {
         },
       ),
       { seed: SEED + 1, numRuns: 500 },
+    );
+  });
+});
+
+/** A place in a range: often at an end, where a bound is tested hardest. */
+const share = fc.oneof(fc.constant(0), fc.constant(1), fc.double({ min: 0, max: 1, noNaN: true }));
+
+describe('the bound by parts with the fan taken out first', () => {
+  it('holds the PV of every path whose fan only rises and whose flows stay in range', () => {
+    // Each state's dollars as the model prices them: heating p_h·Φ(q, F), electricity
+    // p_c·Φ(q_c, F) + p_l·Φ(q_l, F) + p_β·(F − E), Φ = F + q (balanced) or √(F² + q²).
+    fc.assert(
+      fc.property(
+        fc.boolean(),
+        fc.array(
+          fc.record({
+            factors: factorArbitrary,
+            fanRise: share,
+            heating: share,
+            cooling: share,
+            latent: share,
+          }),
+          { minLength: 1, maxLength: 10 },
+        ),
+        fc.double({ min: 0, max: 80, noNaN: true }),
+        fc.double({ min: 0, max: 60, noNaN: true }),
+        (balanced, steps, fanAtNode, fanRoom) => {
+          const usd = { heating: 2.5, cooling: 0.3, latent: 0.1, fan: 0.5 };
+          const flow = (q: number, fan: number) =>
+            fan === 0 ? q : balanced ? fan + q : Math.hypot(fan, q);
+          const range = { heating: [10, 60], cooling: [2, 20], latent: [0, 5] } as const;
+          const at = (share: number, [least, most]: readonly [number, number]) =>
+            least + (most - least) * share;
+          const dollars = (
+            q: { heating: number; cooling: number; latent: number },
+            fan: number,
+          ) => ({
+            heating: usd.heating * flow(q.heating, fan),
+            electricity:
+              usd.cooling * flow(q.cooling, fan) + usd.latent * flow(q.latent, fan) + usd.fan * fan,
+          });
+          const fanMost = fanAtNode + fanRoom;
+          // The fan rises step by step up to F(lo); the final one is at least F(hi) ≤ it.
+          let fan = fanAtNode;
+          let before = dollars({ heating: 40, cooling: 12, latent: 3 }, fanAtNode);
+          let pv = 0;
+          for (const step of steps) {
+            fan = Math.min(fanMost, fan + step.fanRise * fanRoom);
+            const after = dollars(
+              {
+                heating: at(step.heating, range.heating),
+                cooling: at(step.cooling, range.cooling),
+                latent: at(step.latent, range.latent),
+              },
+              fan,
+            );
+            pv +=
+              step.factors.heating * (before.heating - after.heating) +
+              step.factors.electricity * (before.electricity - after.electricity);
+            before = after;
+          }
+          const bound = fanSplitPvBoundUsd({
+            measures: measuresWith(steps.map((step) => step.factors)),
+            heatingFactorLeast: Math.min(...steps.map((step) => step.factors.heating)),
+            electricityFactorLeast: Math.min(...steps.map((step) => step.factors.electricity)),
+            balanced,
+            fanAtNode,
+            fanFinalLeast: fan,
+            fanMost,
+            heatingUsdPerCfm: usd.heating,
+            coolingUsdPerCfm: usd.cooling,
+            latentUsdPerCfm: usd.latent,
+            fanUsdPerCfm: usd.fan,
+            heating: { atNode: 40, least: range.heating[0], most: range.heating[1] },
+            cooling: { atNode: 12, least: range.cooling[0], most: range.cooling[1] },
+            latent: { atNode: 3, least: range.latent[0], most: range.latent[1] },
+          });
+          expect(pv).toBeLessThanOrEqual(bound * (1 + 1e-9) + 1e-9);
+        },
+      ),
+      { seed: SEED + 3, numRuns: 1000 },
     );
   });
 });

@@ -70,6 +70,11 @@
  * slope, so this stays finite where (f) and (h) are not: where the box reaches a share of 1 in
  * the ceiling. It is what proves a tight house with a 62.2 fan loses on every package, where
  * the fan's flow dwarfs what sealing saves.
+ * (k) The same with the 62.2 fan taken out first (fan-split.ts): the fan only rises along a
+ * path, so its share of the dollars counts at the least factor, F(c_X) − F(hi) against every
+ * package, and the rest (what the natural flow adds to the fan's) gets the bound by parts.
+ * Where sealing calls for more fan, this is what keeps the rises of the lives' factors from
+ * multiplying the fan's whole range.
  * Where the box's bounds are not numbers (a formula out of its domain) or are infinite (the
  * wind or stack factor reaching 0 within the box, where the interval rules give the flow's
  * derivative no bound, e.g. a box in which every leak but the ceiling's may be sealed), the
@@ -97,6 +102,7 @@ import {
   type BoundSettings,
   type CellOutlook,
 } from './bounds.ts';
+import { fanSplitPvBoundUsd, type FlowRange } from './fan-split.ts';
 import { pathFactorPvBoundUsd } from './path-factors.ts';
 import {
   BOUND_MARGIN,
@@ -341,10 +347,38 @@ export function subtreeMayWinAim2(
         times(bound.latentUsdPerCfm, latentCfm) +
         bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
       (1 - ENERGY_MARGIN);
-    // (i): the dollars of every state on the way, for the bound by parts.
+    // (i): the dollars of every state on the way, for the bound by parts; (k) with the fan
+    // taken out first.
     const dollars = wayDollars(sums.box, lo, most, heatingLow, electricityLow);
+    const flowsOnTheWay = (season: SeasonBox | null, atNode: number): FlowRange => ({
+      atNode,
+      least: Math.min(
+        flowLow(season, atNode, lo, 0, most),
+        flowLow(season, atNode, lo, least, most),
+      ),
+      most: season === null ? 0 : node.cfm50 * season.flowPerCfm50.hi,
+    });
     const byParts =
-      pathFactorPvBoundUsd(measures, dollars.heating, dollars.electricity) * (1 + BOUND_MARGIN) +
+      Math.min(
+        pathFactorPvBoundUsd(measures, dollars.heating, dollars.electricity),
+        fanSplitPvBoundUsd({
+          measures,
+          heatingFactorLeast: spreads.heatingLeast,
+          electricityFactorLeast: spreads.electricityLeast,
+          balanced: bound.balanced,
+          fanAtNode: fanAtX,
+          fanFinalLeast: fanCfm,
+          fanMost: Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm),
+          heatingUsdPerCfm: bound.heatingUsdPerCfm,
+          coolingUsdPerCfm: bound.coolingUsdPerCfm,
+          latentUsdPerCfm: bound.latentUsdPerCfm,
+          fanUsdPerCfm: bound.fanUsdPerCfm,
+          heating: flowsOnTheWay(sums.box.heating, natural.heatingCfm),
+          cooling: flowsOnTheWay(sums.box.cooling, natural.coolingCfm),
+          latent: flowsOnTheWay(sums.box.latent ?? null, naturalLatentCfm),
+        }),
+      ) *
+        (1 + BOUND_MARGIN) +
       rounding;
     const terms = {
       pvUsd: Math.min(
