@@ -266,10 +266,22 @@ export function rangeQuantile(distribution: Distribution, range: Range, fraction
  */
 export function requireRange(path: string, range: Range): void {
   const { low, likely, high } = range;
-  if (![low, likely, high].every(Number.isFinite) || !(low <= likely && likely <= high)) {
+  if (!isUsableRange(range)) {
     throw InputError.at(
       path,
       `expected finite numbers with low ≤ likely ≤ high, got ${low} / ${likely} / ${high}`,
     );
   }
+}
+
+/** True when a range is finite with low ≤ likely ≤ high (what `requireRange` asks). */
+export function isUsableRange(range: Range): boolean {
+  const { low, likely, high } = range;
+  return (
+    Number.isFinite(low) &&
+    Number.isFinite(likely) &&
+    Number.isFinite(high) &&
+    low <= likely &&
+    likely <= high
+  );
 }

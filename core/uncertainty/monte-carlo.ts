@@ -18,14 +18,14 @@ import {
   type DrawConditions,
   type PackageKernel,
 } from '../plan/kernel.ts';
-import { requireRange, type Distribution } from './distributions.ts';
-import { Xoshiro128StarStar } from './random.ts';
+import type { Range } from '../schema.ts';
+import { isUsableRange, requireRange, type Distribution } from './distributions.ts';
+import { drawFractions, streamKeyOf } from './random.ts';
 import {
   conditionSamplers,
   drawConditions,
-  rangeSampler,
-  sampleRange,
-  type RangeSampler,
+  reductionSamplers,
+  sampleReductions,
 } from './samplers.ts';
 import {
   runSettings,
@@ -103,42 +103,49 @@ export function runDraws(
   samples: DrawSamples,
   reductionScale?: Float64Array,
 ): void {
-  kernel.ranges.forEach((range, index) =>
-    requireRange(`measures.${kernel.measureIds[index]}.estimateCfm50`, range),
-  );
   const count = kernel.ranges.length;
-  const samplers = kernel.ranges.map((range) => rangeSampler(settings.distribution, range));
+  for (let index = 0; index < count; index += 1) {
+    const range = kernel.ranges[index] as Range;
+    // The field's path is built only for the error: a portfolio checks every home's ranges.
+    if (!isUsableRange(range)) {
+      requireRange(`measures.${kernel.measureIds[index]}.estimateCfm50`, range);
+    }
+  }
+  const samplers = reductionSamplers(settings.distribution, kernel.ranges);
   const varied = conditionSamplers(kernel, settings);
-  const conditionsVary = Object.values(varied).some((sampler) => sampler !== null);
+  const conditionsVary =
+    varied.heatingEscalation !== null ||
+    varied.electricityEscalation !== null ||
+    varied.efficiency !== null ||
+    varied.nFactor !== null;
 
-  const random = new Xoshiro128StarStar();
+  const streamKey = streamKeyOf(settings.seed, settings.stream);
+  // A draw's numbers: its measures' first, then (when any varies) the conditions'.
+  const numbers = count + (conditionsVary ? CONDITION_SLOTS : 0);
+  const fractions = new Float64Array(numbers);
+  const conditionFractions = fractions.subarray(count);
   const reductions = new Float64Array(count);
   const conditions: DrawConditions = { ...kernel.baseConditions };
   const figures = emptyFigures();
-  const fractions = new Float64Array(CONDITION_SLOTS);
-  const drawCount = samples.npvUsd.length;
+  const { cfm50After, annualSavingsUsd, npvUsd, sir, fanAdded } = samples;
+  const drawCount = npvUsd.length;
   for (let offset = 0; offset < drawCount; offset += 1) {
-    random.reseed(settings.seed, settings.stream, firstDraw + offset);
-    for (let index = 0; index < count; index += 1) {
-      reductions[index] = sampleRange(samplers[index] as RangeSampler, random.nextFraction());
-    }
+    drawFractions(streamKey, firstDraw + offset, fractions, numbers);
+    sampleReductions(samplers, fractions, reductions);
     if (reductionScale) {
       const scale = reductionScale[firstDraw + offset] ?? 1;
       for (let index = 0; index < count; index += 1)
-        reductions[index] = (reductions[index] ?? 0) * scale;
+        reductions[index] = (reductions[index] as number) * scale;
     }
     // The conditions always take the next numbers, so varying more leaves the measures alone;
     // when none varies, nothing reads them.
-    if (conditionsVary) {
-      for (let slot = 0; slot < CONDITION_SLOTS; slot += 1) fractions[slot] = random.nextFraction();
-      drawConditions(varied, fractions, conditions);
-    }
+    if (conditionsVary) drawConditions(varied, conditionFractions, conditions);
     kernel.evaluate(reductions, conditions, figures);
-    samples.cfm50After[offset] = figures.cfm50After;
-    samples.annualSavingsUsd[offset] = figures.annualSavingsUsd;
-    samples.npvUsd[offset] = figures.npvUsd;
-    samples.sir[offset] = figures.sir;
-    samples.fanAdded[offset] = figures.fanAdded ? 1 : 0;
+    cfm50After[offset] = figures.cfm50After;
+    annualSavingsUsd[offset] = figures.annualSavingsUsd;
+    npvUsd[offset] = figures.npvUsd;
+    sir[offset] = figures.sir;
+    fanAdded[offset] = figures.fanAdded ? 1 : 0;
   }
 }
 

@@ -10,9 +10,13 @@
  * - the steps up to the package are `evaluateHome`'s and `planHome`'s own calls, in their
  *   order (parse, fit, leak shares, model, prices, measures, `sequenceMeasures`), so the
  *   package is the plan's;
- * - every step the plan values beside them is valued here too (the package at its low and
- *   high estimates, each left-out measure at its low and high after the package), and the
- *   ventilation outcome and safety check are run as `evaluateHome` runs them;
+ * - the steps the plan values beside them (the package at its low and high estimates, each
+ *   left-out measure at its low and high after the package) are valued here too where their
+ *   money could refuse the home, that is when it has no electricity price (a step's energy
+ *   is finite and its valuation cannot throw for any leakage state a step leaves), the
+ *   ventilation outcome is worked out as `evaluateHome` works it out, and the safety check's
+ *   input is checked as `assessSafety` checks it (`buildSafetyContext`, the one part of it
+ *   that can refuse a home; its rules only write cautions, which a run never reads);
  * - what is left, the Decimal money, can refuse only a non-finite saving or a missing
  *   electricity price, which are checked;
  * - when anything here throws or a check fails, the home is evaluated in full, so the error
@@ -32,7 +36,7 @@ import {
   type StepOutcome,
 } from '../plan/step.ts';
 import { ventilationAfterPackage } from '../plan/ventilation-fan.ts';
-import { assessSafety } from '../safety.ts';
+import { buildSafetyContext } from '../safety/context.ts';
 import type { HomeFile, Range } from '../schema.ts';
 
 /** A home's package and what its kernel is compiled from. */
@@ -84,13 +88,13 @@ function quickPackage(input: unknown, options: EvaluateOptions): HomePackage | n
     ranking: home.economics.ranking ?? 'sir',
   });
   const included = sequenced.included.map((step) => step.measure);
-  const ranged = rangedSteps(model, start, sequenced);
   const ventilation = ventilationAfterPackage({
     model,
     prices,
     leakageAfter: sequenced.finalState.leakage,
   });
-  assessSafety({
+  // What assessSafety throws, it throws here: its rules, run after this check, throw nothing.
+  buildSafetyContext({
     house: home.house,
     heating: home.heating,
     combustionAppliances: home.combustionAppliances ?? [],
@@ -114,6 +118,7 @@ function quickPackage(input: unknown, options: EvaluateOptions): HomePackage | n
     },
   });
   const valued = [...sequenced.included, ...sequenced.excluded];
+  const ranged = () => rangedSteps(model, start, sequenced);
   return moneyCannotRefuse(prices, valued, ranged) ? { home, model, measures: included } : null;
 }
 
@@ -141,13 +146,14 @@ function rangedSteps(model: HomeModel, start: PlanState, sequenced: SequencedPla
 /**
  * True when the plan's money cannot throw: each valued step's savings are finite (its worth
  * reads them as finite Decimals), and without an electricity price no step saves or adds
- * electricity (its worth would ask for the price). Rates, lives, costs and loan terms are
- * held in range by the home file's schema.
+ * electricity (its worth would ask for the price), the low and high steps (`ranged`, worked
+ * out only then) included. Rates, lives, costs and loan terms are held in range by the home
+ * file's schema.
  */
 function moneyCannotRefuse(
   prices: PriceBook,
   valued: readonly StepOutcome[],
-  ranged: readonly StepOutcome[],
+  ranged: () => readonly StepOutcome[],
 ): boolean {
   const finite = valued.every(({ saved }) =>
     [saved.heatingFuelUnits, saved.coolingKwh, saved.ventilationFanKwh, saved.siteMMBtu].every(
@@ -156,7 +162,7 @@ function moneyCannotRefuse(
   );
   if (!finite) return false;
   if (prices.electricity !== null) return true;
-  return [...valued, ...ranged].every(
+  return [...valued, ...ranged()].every(
     ({ saved }) => saved.coolingKwh + saved.ventilationFanKwh === 0,
   );
 }

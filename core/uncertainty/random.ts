@@ -20,6 +20,10 @@ const TWO_TO_32 = 4_294_967_296;
 const GOLDEN_32 = 0x9e3779b9;
 const FMIX_MULTIPLIER_1 = 0x85ebca6b;
 const FMIX_MULTIPLIER_2 = 0xc2b2ae35;
+/** The state words' offsets: GOLDEN_32 times 2, 3 and 4 in 32-bit arithmetic. */
+const GOLDEN_32_TIMES_2 = Math.imul(GOLDEN_32, 2);
+const GOLDEN_32_TIMES_3 = Math.imul(GOLDEN_32, 3);
+const GOLDEN_32_TIMES_4 = Math.imul(GOLDEN_32, 4);
 
 /**
  * MurmurHash3's 32-bit finalizer: a bijection on 32-bit words in which each input bit
@@ -36,6 +40,18 @@ export function mix32(word: number): number {
   h = Math.imul(h, FMIX_MULTIPLIER_2);
   h ^= h >>> 16;
   return h >>> 0;
+}
+
+/**
+ * The part of a draw's state that depends on the seed and stream alone, for
+ * `Xoshiro128StarStar.reseedInStream`.
+ *
+ * @param seed - an integer (its low 32 bits are used)
+ * @param stream - which stream
+ * @returns an unsigned 32-bit integer
+ */
+export function streamKeyOf(seed: number, stream: number): number {
+  return mix32(mix32(seed) ^ stream);
 }
 
 function rotateLeft(word: number, bits: number): number {
@@ -79,11 +95,19 @@ export class Xoshiro128StarStar {
    * states.
    */
   reseed(seed: number, stream: number, draw: number): void {
-    const key = mix32(mix32(mix32(seed) ^ stream) + Math.imul(GOLDEN_32, draw + 1));
+    this.reseedInStream(streamKeyOf(seed, stream), draw);
+  }
+
+  /**
+   * `reseed(seed, stream, draw)` with the part that depends on seed and stream alone worked
+   * out beforehand by `streamKeyOf`: a run reseeds for every draw of one stream.
+   */
+  reseedInStream(streamKey: number, draw: number): void {
+    const key = mix32(streamKey + Math.imul(GOLDEN_32, draw + 1));
     this.s0 = mix32(key + GOLDEN_32);
-    this.s1 = mix32(key + Math.imul(GOLDEN_32, 2));
-    this.s2 = mix32(key + Math.imul(GOLDEN_32, 3));
-    this.s3 = mix32(key + Math.imul(GOLDEN_32, 4));
+    this.s1 = mix32(key + GOLDEN_32_TIMES_2);
+    this.s2 = mix32(key + GOLDEN_32_TIMES_3);
+    this.s3 = mix32(key + GOLDEN_32_TIMES_4);
     // mix32 is a bijection, so the four words cannot all be 0 (their inputs differ); keep the
     // reference code's requirement explicit all the same.
     if ((this.s0 | this.s1 | this.s2 | this.s3) >>> 0 === 0) this.s0 = 1;
@@ -106,6 +130,42 @@ export class Xoshiro128StarStar {
   /** The next fraction in [0, 1), in steps of 2^−32. */
   nextFraction(): number {
     return this.nextUint32() / TWO_TO_32;
+  }
+}
+
+/**
+ * The first `count` fractions of one draw's generator into out[0..count−1]: the numbers of
+ * `reseedInStream(streamKey, draw)` then `nextFraction()` `count` times, with the state in
+ * local variables (a run takes a few numbers a draw, a million draws a portfolio).
+ *
+ * @param streamKey - `streamKeyOf(seed, stream)`
+ * @param draw - which draw of that stream
+ * @param out - at least `count` long
+ * @param count - how many fractions
+ */
+export function drawFractions(
+  streamKey: number,
+  draw: number,
+  out: Float64Array,
+  count: number,
+): void {
+  const key = mix32(streamKey + Math.imul(GOLDEN_32, draw + 1));
+  let s0 = mix32(key + GOLDEN_32);
+  let s1 = mix32(key + GOLDEN_32_TIMES_2);
+  let s2 = mix32(key + GOLDEN_32_TIMES_3);
+  let s3 = mix32(key + GOLDEN_32_TIMES_4);
+  if ((s0 | s1 | s2 | s3) >>> 0 === 0) s0 = 1;
+  for (let index = 0; index < count; index += 1) {
+    // nextUint32's steps, on the locals.
+    const result = Math.imul(rotateLeft(Math.imul(s1, 5), 7), 9) >>> 0;
+    const t = s1 << 9;
+    s2 ^= s0;
+    s3 ^= s1;
+    s1 ^= s2;
+    s0 ^= s3;
+    s2 ^= t;
+    s3 = rotateLeft(s3, 11);
+    out[index] = result / TWO_TO_32;
   }
 }
 

@@ -51,6 +51,82 @@ export function sampleRange(sampler: RangeSampler, fraction: number): number {
   return sampler.low + width * (lower + (position - cell) * ((table[cell + 1] ?? 1) - lower));
 }
 
+/** How a measure's range is sampled: its likely value, its PERT table or triangular. */
+const POINT = 0;
+const TABLE = 1;
+const TRIANGULAR = 2;
+
+/**
+ * The samplers of a package's measures laid out for the draw loop: one entry per measure in
+ * typed arrays, so a draw reads numbers, not objects.
+ */
+export interface ReductionSamplers {
+  readonly count: number;
+  /** POINT, TABLE or TRIANGULAR. */
+  readonly kind: Uint8Array;
+  readonly low: Float64Array;
+  readonly width: Float64Array;
+  readonly likely: Float64Array;
+  /** Each measure's standardized PERT quantiles (the shared cached table); empty if none. */
+  readonly tables: readonly Float64Array[];
+  readonly ranges: readonly Range[];
+}
+
+const NO_TABLE = new Float64Array(0);
+
+/** The samplers of the measures' ranges, in package order (as `rangeSampler` finds them). */
+export function reductionSamplers(
+  distribution: Distribution,
+  ranges: readonly Range[],
+): ReductionSamplers {
+  const count = ranges.length;
+  const kind = new Uint8Array(count);
+  const low = new Float64Array(count);
+  const width = new Float64Array(count);
+  const likely = new Float64Array(count);
+  const tables: Float64Array[] = [];
+  ranges.forEach((range, index) => {
+    const sampler = rangeSampler(distribution, range);
+    low[index] = sampler.low;
+    width[index] = sampler.width;
+    likely[index] = range.likely;
+    kind[index] = !(sampler.width > 0) ? POINT : sampler.table === null ? TRIANGULAR : TABLE;
+    tables.push(sampler.table ?? NO_TABLE);
+  });
+  return { count, kind, low, width, likely, tables, ranges };
+}
+
+/**
+ * One draw's reductions: measure i's value of its range at fractions[i] (`sampleRange`'s),
+ * into out[i].
+ */
+export function sampleReductions(
+  samplers: ReductionSamplers,
+  fractions: Float64Array,
+  out: Float64Array,
+): void {
+  const { count, kind, low, width, likely, tables } = samplers;
+  for (let index = 0; index < count; index += 1) {
+    const fraction = fractions[index] as number;
+    const measureKind = kind[index];
+    if (measureKind === TABLE) {
+      const table = tables[index] as Float64Array;
+      const steps = table.length - 1;
+      const position = fraction * steps;
+      const cell = Math.min(steps - 1, Math.floor(position));
+      const lower = table[cell] as number;
+      out[index] =
+        (low[index] as number) +
+        (width[index] as number) *
+          (lower + (position - cell) * ((table[cell + 1] as number) - lower));
+    } else if (measureKind === POINT) {
+      out[index] = likely[index] as number;
+    } else {
+      out[index] = triangularQuantile(samplers.ranges[index] as Range, fraction);
+    }
+  }
+}
+
 /** The varied conditions' samplers, each null when that condition is not varied. */
 export interface ConditionSamplers {
   heatingEscalation: RangeSampler | null;
