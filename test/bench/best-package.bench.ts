@@ -12,12 +12,17 @@
  * against the 2^24 a full enumeration would, and the package chosen; asserts nothing.
  *
  * AIM-2 (the enhanced model) has its own bound (core/plan/best-package/bounds-aim2.ts, over the
- * box of leakage by location a subtree can reach). The last lines time the demo's AIM-2 home
- * (Larch Terrace, a tight house that already calls for a 62.2 fan) made up to 16 and to 24
- * measures the same way, against the same 1 s target. Figures of the 24-measure best NPV within
- * half the cost on this machine, as the bound grew: 13.4 s (1 035 006 packages) before the
- * share cuts, ranged boxes and joint PV-less-cost bound of bounds-aim2.ts (g)–(h); 13–15 s
- * (360 683) with them; about 0.5 s (7 590) with the bound by parts (i), which needs no slope.
+ * box of leakage by location a subtree can reach). The same five queries are timed on three
+ * more homes of 24 measures made the same way: the demo's AIM-2 home (Larch Terrace, a tight
+ * house that already calls for a 62.2 fan, where every measure loses money), the lblBasic home
+ * above put on AIM-2 (leaky, 90 % of its leakage in the ceiling, where most measures pay),
+ * and that home planned hour by hour on a generated year (test/_lib/hourly-home.ts, invented,
+ * not a place's weather). Figures of the tight house's best NPV within half the cost on this
+ * machine as the bound grew: 13.4 s (1 035 006 packages) before the share cuts, ranged boxes
+ * and joint PV-less-cost bound of bounds-aim2.ts (g)–(h); 13–15 s (360 683) with them; about
+ * 0.5 s (7 590) with the bound by parts (i); and with the fan taken out first (k) 1 730
+ * packages. The leaky home's best NPV took 24 s (488 691) before (k), and hour by hour, before
+ * the hours were gathered in bins (aim2-hourly-bins.ts), every one of the 2^24 packages.
  * Run: npx tsx test/bench/best-package.bench.ts
  */
 import { performance } from 'node:perf_hooks';
@@ -25,8 +30,10 @@ import { evaluateHome } from '../../core/evaluate.ts';
 import { MEASURE_LIBRARY } from '../../core/measure-library.ts';
 import { bestPackage, type BestPackageOptions } from '../../core/plan/best-package.ts';
 import type { HomeFileInput } from '../../core/schema.ts';
+import { detectAndParseWeather, weatherYearOf, type WeatherYear } from '../../core/weather.ts';
 import { JUNIPER_HOLLOW } from '../../db/demo/homes/juniper-hollow.ts';
 import { LARCH_TERRACE } from '../../db/demo/homes/larch-terrace.ts';
+import { hourlyYearText } from '../_lib/hourly-home.ts';
 
 const TARGET_MS = 1000;
 const RUNS = 3;
@@ -72,9 +79,10 @@ function timeSearch(
   label: string,
   home: HomeFileInput,
   options: BestPackageOptions,
-  runs: number = RUNS,
+  weather?: WeatherYear,
 ): void {
-  const evaluation = evaluateHome(home);
+  const runs = RUNS;
+  const evaluation = evaluateHome(home, weather === undefined ? {} : { weather });
   const count = evaluation.plan.entries.length;
   const samples: number[] = [];
   let result = runs > 1 ? bestPackage(evaluation, options) : null;
@@ -95,54 +103,43 @@ function timeSearch(
 }
 
 /** Half (or a third) of what a home's measures cost, to the cent. */
-function shareOfCostUsd(home: HomeFileInput, share: number): number {
-  const costUsd = evaluateHome(home)
+function shareOfCostUsd(home: HomeFileInput, share: number, weather?: WeatherYear): number {
+  const costUsd = evaluateHome(home, weather === undefined ? {} : { weather })
     .plan.entries.map((entry) => entry.step.measure.cost.totalUsdFloat)
     .reduce((total, cost) => total + cost, 0);
   return Math.round(costUsd * share * 100) / 100;
 }
 
-const home24 = benchHome(JUNIPER_HOLLOW, 24);
-const energyCostUsd = evaluateHome(home24)
-  .plan.entries.map((entry) => entry.step.measure.cost.totalUsdFloat)
-  .reduce((total, cost) => total + cost, 0);
-const halfBudget = Math.round(energyCostUsd * 50) / 100;
+/** The five queries on one home: NPV, savings and SIR, within half its cost or without a limit. */
+function timeQueries(label: string, home: HomeFileInput, weather?: WeatherYear): void {
+  const half = shareOfCostUsd(home, 0.5, weather);
+  const queries: [string, BestPackageOptions][] = [
+    [`best NPV, budget ${half} USD`, { budgetUsd: half }],
+    ['best NPV, no budget', { budgetUsd: Infinity }],
+    [
+      `best savings, budget ${half} USD, package SIR ≥ 1`,
+      { budgetUsd: half, objective: 'savings', packageSirAtLeastOne: true },
+    ],
+    [
+      'best savings, no budget, every SIR ≥ 1',
+      { budgetUsd: Infinity, objective: 'savings', everyMeasureSirAtLeastOne: true },
+    ],
+    [`best SIR, budget ${half} USD`, { budgetUsd: half, objective: 'sir' }],
+  ];
+  for (const [query, options] of queries) timeSearch(`${label}: ${query}`, home, options, weather);
+}
 
-timeSearch(`best NPV, budget ${halfBudget} USD`, home24, { budgetUsd: halfBudget });
-timeSearch('best NPV, no budget', home24, { budgetUsd: Infinity });
-timeSearch(`best savings, budget ${halfBudget} USD, package SIR ≥ 1`, home24, {
-  budgetUsd: halfBudget,
-  objective: 'savings',
-  packageSirAtLeastOne: true,
-});
-timeSearch('best savings, no budget, every SIR ≥ 1', home24, {
-  budgetUsd: Infinity,
-  objective: 'savings',
-  everyMeasureSirAtLeastOne: true,
-});
-timeSearch(`best SIR, budget ${halfBudget} USD`, home24, {
-  budgetUsd: halfBudget,
-  objective: 'sir',
-});
+const juniper24 = benchHome(JUNIPER_HOLLOW, 24);
+timeQueries('Juniper Hollow', juniper24);
 const aim2Home16 = benchHome(LARCH_TERRACE, 16);
-timeSearch('aim2, best NPV, budget a third', aim2Home16, {
+timeSearch('Larch Terrace, best NPV, budget a third', aim2Home16, {
   budgetUsd: shareOfCostUsd(aim2Home16, 0.33),
 });
-const aim2Home24 = benchHome(LARCH_TERRACE, 24);
-const aim2Half = shareOfCostUsd(aim2Home24, 0.5);
-timeSearch(`aim2, best NPV, budget ${aim2Half} USD`, aim2Home24, { budgetUsd: aim2Half });
-timeSearch('aim2, best NPV, no budget', aim2Home24, { budgetUsd: Infinity });
-timeSearch(`aim2, best savings, budget ${aim2Half} USD, package SIR ≥ 1`, aim2Home24, {
-  budgetUsd: aim2Half,
-  objective: 'savings',
-  packageSirAtLeastOne: true,
-});
-timeSearch('aim2, best savings, no budget, every SIR ≥ 1', aim2Home24, {
-  budgetUsd: Infinity,
-  objective: 'savings',
-  everyMeasureSirAtLeastOne: true,
-});
-timeSearch(`aim2, best SIR, budget ${aim2Half} USD`, aim2Home24, {
-  budgetUsd: aim2Half,
-  objective: 'sir',
-});
+timeQueries('Larch Terrace (tight)', benchHome(LARCH_TERRACE, 24));
+const juniperOnAim2: HomeFileInput = { ...juniper24, infiltrationMethod: 'aim2' };
+timeQueries('Juniper Hollow on AIM-2 (leaky)', juniperOnAim2);
+timeQueries(
+  'Juniper Hollow on AIM-2, hour by hour',
+  { ...juniperOnAim2, hourlyWeather: {} },
+  weatherYearOf(detectAndParseWeather(hourlyYearText())),
+);
