@@ -27,52 +27,47 @@
  */
 import { performance } from 'node:perf_hooks';
 import { evaluateHome } from '../../core/evaluate.ts';
-import { MEASURE_LIBRARY } from '../../core/measure-library.ts';
 import { bestPackage, type BestPackageOptions } from '../../core/plan/best-package.ts';
 import type { HomeFileInput } from '../../core/schema.ts';
 import { detectAndParseWeather, weatherYearOf, type WeatherYear } from '../../core/weather.ts';
 import { JUNIPER_HOLLOW } from '../../db/demo/homes/juniper-hollow.ts';
 import { LARCH_TERRACE } from '../../db/demo/homes/larch-terrace.ts';
 import { hourlyYearText } from '../_lib/hourly-home.ts';
+import { median, withLibraryMeasures } from './_lib/bench-homes.ts';
 
 const TARGET_MS = 1000;
 const RUNS = 3;
-/** An invented labour rate for the bench home's added measures. */
-const BENCH_LABOR_RATE_USD_PER_HOUR = 58;
+/** Rounds a bench-added measure's materials and hours to the cent, as the home was first made. */
+function roundedCost(
+  measure: HomeFileInput['measures'][number],
+): HomeFileInput['measures'][number] {
+  const { materialsUsd, laborHours } = measure.cost;
+  return {
+    ...measure,
+    cost: {
+      ...measure.cost,
+      ...(materialsUsd === undefined ? {} : { materialsUsd: Math.round(materialsUsd * 100) / 100 }),
+      ...(laborHours === undefined ? {} : { laborHours: Math.round(laborHours * 100) / 100 }),
+    },
+  };
+}
 
 /** A demo home with its measures made planned and library measures added up to `count`. */
 function benchHome(base: HomeFileInput, count: number): HomeFileInput {
-  const measures: HomeFileInput['measures'] = base.measures.map((measure) => ({
+  const planned: HomeFileInput['measures'] = base.measures.map((measure) => ({
     ...measure,
     status: 'planned',
     cost: { ...measure.cost, healthAndSafety: false },
   }));
-  for (let index = 0; measures.length < count; index += 1) {
-    const type = MEASURE_LIBRARY[index % MEASURE_LIBRARY.length];
-    if (type === undefined) break;
-    const units = 2 + (index % 5);
-    measures.push({
-      id: `bench-${index + 1}`,
-      type: type.id,
-      byUnits: { units },
-      cost: {
-        materialsUsd: Math.round(type.defaultCost.materialsUsdPerUnit * units * 100) / 100,
-        laborHours: Math.round(type.defaultCost.laborHoursPerUnit * units * 100) / 100,
-        laborRateUsdPerHour: BENCH_LABOR_RATE_USD_PER_HOUR,
-      },
-    });
-  }
+  const measures = withLibraryMeasures({ ...base, measures: planned }, count).map(
+    (measure, index) => (index < planned.length ? measure : roundedCost(measure)),
+  );
   return {
     ...base,
     demo: false,
     name: `Bench home: ${count} measures`,
     measures: measures.slice(0, count),
   };
-}
-
-function median(values: readonly number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)] ?? NaN;
 }
 
 function timeSearch(

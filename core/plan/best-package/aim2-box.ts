@@ -47,13 +47,13 @@ import {
   abs,
   add,
   constant,
-  constantIn,
   div,
   iAdd,
   iMul,
   iSub,
   min,
   mul,
+  mulByRange,
   plus,
   pow,
   powInUnit,
@@ -179,50 +179,21 @@ export function aim2BoxBounds(
       scale(flue, factors.flueShelter - factors.wallShelter),
       factors.wallShelter,
     );
-    /** G over a bin of hours (or a degree-day season's one pair of pressures). */
-    const binFlow = (bin: DriverBin): Dual | null => {
-      const point = bin.stackPa.lo === bin.stackPa.hi && bin.windPa.lo === bin.windPa.hi;
-      const byPressure = (quantity: Dual, pressure: Interval, root: boolean) => {
-        const range = root ? { lo: Math.sqrt(pressure.lo), hi: Math.sqrt(pressure.hi) } : pressure;
-        return point ? scale(quantity, range.lo) : mul(quantity, constantIn(range));
-      };
-      const s = byPressure(stackRoot, bin.stackPa, false);
-      const w = mul(windRoot, byPressure(square(shelter), bin.windPa, false));
-      const root = mul(
-        byPressure(stackHalf, bin.stackPa, true),
-        byPressure(mul(windHalf, shelter), bin.windPa, true),
-      );
-      const inner = add(add(s, w), scale(root, STACK_WIND_INTERACTION_B));
-      // √(S·W) ≤ (S + W)/2, so the sum is at least 5/6 of S + W.
-      inner.v = { lo: Math.max(inner.v.lo, (5 / 6) * (s.v.lo + w.v.lo)), hi: inner.v.hi };
-      const g = pow(inner, n);
-      if (g === null || !(g.v.lo >= 0) || Number.isNaN(g.v.hi)) return null;
-      return bin.weight === 1 ? g : scale(g, bin.weight);
-    };
-    const seasonOf = (drivers: SeasonDrivers): SeasonBox | null => {
-      let g: Dual | null = null;
-      for (const bin of drivers.bins) {
-        const part = binFlow(bin);
-        if (part === null) return null;
-        g = g === null ? part : add(g, part);
-      }
-      if (drivers.stackOnly > 0) {
-        const part = scale(stackFactor, drivers.stackOnly);
-        g = g === null ? part : add(g, part);
-      }
-      if (drivers.windOnly > 0) {
-        const shelterPower = pow(shelter, 2 * n);
-        if (shelterPower === null) return null;
-        const part = scale(mul(windFactor, shelterPower), drivers.windOnly);
-        g = g === null ? part : add(g, part);
-      }
-      if (g === null || !(g.v.lo >= 0) || Number.isNaN(g.v.hi)) return null;
-      return seasonBox(g, [shares.ceiling, shares.floor, shares.flue], perCfm50);
+    const terms: ShareTerms = {
+      stackRoot,
+      windRoot: mul(windRoot, square(shelter)),
+      crossRoot: mul(stackHalf, mul(windHalf, shelter)),
+      stackFactor,
+      windFactor,
+      shelter,
+      shares: [shares.ceiling, shares.floor, shares.flue],
+      n,
+      perCfm50,
     };
     if (heating === null) return null;
-    const heatingBox = seasonOf(heating);
-    const coolingBox = cooling === null ? null : seasonOf(cooling);
-    const latentBox = latent === null ? null : seasonOf(latent);
+    const heatingBox = seasonFlow(terms, heating);
+    const coolingBox = cooling === null ? null : seasonFlow(terms, cooling);
+    const latentBox = latent === null ? null : seasonFlow(terms, latent);
     if (heatingBox === null || (cooling !== null && coolingBox === null)) return null;
     if (latent !== null && latentBox === null) return null;
     const only = onlyLocation(box);
@@ -235,6 +206,74 @@ export function aim2BoxBounds(
       ? { heating: heatingBox, cooling: coolingBox, latent: latentBox }
       : { heating: heatingBox, cooling: coolingBox };
   };
+}
+
+/**
+ * What a box's seasons share: a = f_s^(1/n), b = f_w^(1/n)·s² and √(a·b) (`stackRoot`,
+ * `windRoot`, `crossRoot`), f_s, f_w and the shelter s, each over the box, and the box's
+ * ceiling, floor and flue shares.
+ */
+interface ShareTerms {
+  stackRoot: Dual;
+  windRoot: Dual;
+  crossRoot: Dual;
+  stackFactor: Dual;
+  windFactor: Dual;
+  shelter: Dual;
+  shares: Interval[];
+  n: number;
+  perCfm50: number;
+}
+
+/** A quantity of the shares times a pressure range (a point range scales it). */
+function timesPressure(quantity: Dual, pressure: Interval): Dual {
+  return pressure.lo === pressure.hi
+    ? scale(quantity, pressure.lo)
+    : mulByRange(quantity, pressure);
+}
+
+/**
+ * G over a bin of hours (or a degree-day season's one pair of pressures):
+ * weight·(a·P_s + b·P_w + B·√(a·b)·√(P_s·P_w))ⁿ; null where it leaves its domain.
+ */
+function binFlow(parts: ShareTerms, bin: DriverBin): Dual | null {
+  const s = timesPressure(parts.stackRoot, bin.stackPa);
+  const w = timesPressure(parts.windRoot, bin.windPa);
+  // Both pressures are at least 0, so √(P_s·P_w) runs from the product of the low roots to
+  // that of the high ones.
+  const crossPa: Interval = {
+    lo: Math.sqrt(bin.stackPa.lo) * Math.sqrt(bin.windPa.lo),
+    hi: Math.sqrt(bin.stackPa.hi) * Math.sqrt(bin.windPa.hi),
+  };
+  const cross = timesPressure(parts.crossRoot, crossPa);
+  const inner = add(add(s, w), scale(cross, STACK_WIND_INTERACTION_B));
+  // √(S·W) ≤ (S + W)/2, so the sum is at least 5/6 of S + W.
+  inner.v = { lo: Math.max(inner.v.lo, (5 / 6) * (s.v.lo + w.v.lo)), hi: inner.v.hi };
+  const g = pow(inner, parts.n);
+  if (g === null || !(g.v.lo >= 0) || Number.isNaN(g.v.hi)) return null;
+  return bin.weight === 1 ? g : scale(g, bin.weight);
+}
+
+/** A season's G over the box: its bins' and its single-driver hours' terms summed. */
+function seasonFlow(terms: ShareTerms, drivers: SeasonDrivers): SeasonBox | null {
+  let g: Dual | null = null;
+  for (const bin of drivers.bins) {
+    const part = binFlow(terms, bin);
+    if (part === null) return null;
+    g = g === null ? part : add(g, part);
+  }
+  if (drivers.stackOnly > 0) {
+    const part = scale(terms.stackFactor, drivers.stackOnly);
+    g = g === null ? part : add(g, part);
+  }
+  if (drivers.windOnly > 0) {
+    const shelterPower = pow(terms.shelter, 2 * terms.n);
+    if (shelterPower === null) return null;
+    const part = scale(mul(terms.windFactor, shelterPower), drivers.windOnly);
+    g = g === null ? part : add(g, part);
+  }
+  if (g === null || !(g.v.lo >= 0) || Number.isNaN(g.v.hi)) return null;
+  return seasonBox(g, terms.shares, terms.perCfm50);
 }
 
 /** G's range and D_l (see the top comment), widened by the float margin. */

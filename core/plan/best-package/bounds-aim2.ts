@@ -85,16 +85,8 @@
  * which then has its own mean flow, enters the electricity bounds like the cooling one
  * (aim2-steps.ts, `latentUsdPerCfm`); everything above holds as it stands.
  */
-import { LEAK_LOCATIONS, type LeakLocation } from '../../schema.ts';
-import type { Aim2Box, SeasonBox } from './aim2-box.ts';
-import {
-  ENERGY_MARGIN,
-  knapsackOf,
-  stepSlopes,
-  subtreeBox,
-  times,
-  type Aim2Bound,
-} from './aim2-steps.ts';
+import { AIM2_HALVINGS, mayWinIn, rangeSums, roomsOf, type RangeWalk } from './aim2-ranges.ts';
+import { subtreeBox, type Aim2Bound } from './aim2-steps.ts';
 import {
   deadEndMayWin,
   outlookMaker,
@@ -102,8 +94,6 @@ import {
   type BoundSettings,
   type CellOutlook,
 } from './bounds.ts';
-import { fanSplitPvBoundUsd, type FlowRange } from './fan-split.ts';
-import { pathFactorPvBoundUsd } from './path-factors.ts';
 import {
   BOUND_MARGIN,
   HALF_CENT_USD,
@@ -112,6 +102,7 @@ import {
   type LiveMeasure,
 } from './remaining-measures.ts';
 
+export { AIM2_HALVINGS, RANGED_BOX_HALVINGS } from './aim2-ranges.ts';
 export {
   aim2Bounded,
   buildAim2Bound,
@@ -122,39 +113,9 @@ export {
   type StepSlopes,
 } from './aim2-steps.ts';
 
-/** How many times the walk may halve a range of final totals that may still win. */
-export const AIM2_HALVINGS = 14;
-
-/** For how many of those halvings a range gets a box of its own ((g)); deeper ones reuse it. */
-export const RANGED_BOX_HALVINGS = 6;
-
-/** The largest Σ D_l·x_l of (d) for a total in [least, most]. */
-function largestFall(
-  season: SeasonBox,
-  rooms: readonly { location: LeakLocation; room: number }[],
-  least: number,
-  most: number,
-): number {
-  const sorted = [...rooms].sort(
-    (a, b) => season.fallPerCfm50[b.location] - season.fallPerCfm50[a.location],
-  );
-  let taken = 0;
-  let fall = 0;
-  for (const { location, room } of sorted) {
-    const rate = season.fallPerCfm50[location];
-    const limit = rate > 0 ? most : least;
-    const part = Math.min(room, Math.max(0, limit - taken));
-    if (part <= 0) continue;
-    taken += part;
-    fall += rate * part;
-  }
-  return fall;
-}
-
 /**
  * Whether some package strictly below an AIM-2 node might beat the best one found: false only
- * when every cell its final total could be in is judged lost by `mayWin`.
-
+ * when every range its final total could be in is judged lost by `mayWin` (aim2-ranges.ts).
  */
 export function subtreeMayWinAim2(
   bound: Aim2Bound,
@@ -173,11 +134,7 @@ export function subtreeMayWinAim2(
   );
   if (box === null) return true;
   const natural = bound.model.airflow(node.leakage);
-  // Hour by hour the latent load's own mean flow (aim2-box.ts `latent`; 0 on degree days,
-  // where bound.latentUsdPerCfm is 0).
-  const naturalLatentCfm = natural.coolingLatentCfm ?? 0;
   const spreads = factorSpreads(measures);
-  const rounding = HALF_CENT_USD * measures.length;
   const slack =
     BOUND_MARGIN *
     ((spreads.heatingMost + spreads.electricityMost + 1) *
@@ -189,225 +146,26 @@ export function subtreeMayWinAim2(
       settings.fanCostUsd +
       measures.reduce((total, measure) => total + measure.costUsd, 0) +
       1);
-  const outlookOf = outlookMaker(node, settings, slack);
-
-  // (e): each step's signed saving per CFM50 removed, by location, over the box of the
-  // states whose total is at least `least` (g), with the knapsacks of (f) on them.
   const curve = costCurve(node.leakage, node.cfm50 - settings.floorCfm50, measures);
-  const bottom = node.cfm50 - curve.totalCfm50;
-  const sumsOver = (rangeBox: Aim2Box, leastTotalCfm50: number) => {
-    const slopes = stepSlopes(bound, rangeBox, node.cfm50, leastTotalCfm50);
-    const heatingSlope = (measure: LiveMeasure) => slopes.heating[measure.location];
-    const electricitySlope = (measure: LiveMeasure) => slopes.electricity[measure.location];
-    const pvRate = (measure: LiveMeasure) =>
-      times(measure.factors.heating, heatingSlope(measure)) +
-      times(measure.factors.electricity, electricitySlope(measure));
-    return {
-      box: rangeBox,
-      // A measure at the least factors has no excess, whatever its slopes.
-      excessUpTo: knapsackOf(
-        measures,
-        (measure) =>
-          times(measure.factors.heating - spreads.heatingLeast, heatingSlope(measure)) +
-          times(measure.factors.electricity - spreads.electricityLeast, electricitySlope(measure)),
-      ),
-      pvUpTo: knapsackOf(measures, pvRate),
-      // (h): PV less cost per CFM50, jointly for each measure.
-      netUpTo: knapsackOf(
-        measures,
-        (measure) => pvRate(measure) - measure.costUsd / measure.sizeCfm50,
-      ),
-      savingsUpTo: knapsackOf(
-        measures,
-        (measure) => heatingSlope(measure) + electricitySlope(measure),
-      ),
-    };
-  };
-  const whole = sumsOver(box, bottom);
-  const lower = { ...node.leakage };
-  for (const measure of measures) lower[measure.location] -= measure.sizeCfm50;
-  const rooms = LEAK_LOCATIONS.map((location) => ({
-    location,
-    room: node.leakage[location] - Math.max(0, lower[location]),
-  }));
-  const leastCostOf = (removed: number) => {
-    let cost = 0;
-    let start = 0;
-    curve.lengthsCfm50.forEach((length, segment) => {
-      cost +=
-        Math.min(length, Math.max(0, removed - start)) * (curve.ratesUsdPerCfm50[segment] ?? 0);
-      start += length;
-    });
-    return cost;
-  };
-  const budgetLeft = settings.budgetLeftUsd * (1 + BOUND_MARGIN) + 1e-9;
   const model = bound.model;
-  const combine = (infiltrationCfm: number, fanCfm: number) =>
-    fanCfm === 0
-      ? infiltrationCfm
-      : bound.balanced
-        ? fanCfm + infiltrationCfm
-        : Math.hypot(fanCfm, infiltrationCfm);
-  const flowLow = (
-    season: SeasonBox | null,
-    atX: number,
-    lo: number,
-    least: number,
-    most: number,
-  ) =>
-    season === null
-      ? 0
-      : Math.max(0, lo * season.flowPerCfm50.lo, atX - largestFall(season, rooms, least, most));
-
-  const fanAtX = Math.max(model.existingFanCfm, model.ventilation(node.cfm50).fanNeedCfm);
-  /**
-   * (i): a year's dollars at X and their range over the states on the way to a final total in
-   * [lo, X's]: every such state has a total in [lo, c_X], so its flow is at most c_X·G_hi and
-   * its fan at most F(lo); at least the flow of (d) with nothing removed required and the fan
-   * at X's, or the final state's least (`finalHeatingUsd`, `finalElectricityUsd`).
-   */
-  const wayDollars = (
-    rangeBox: Aim2Box,
-    lo: number,
-    most: number,
-    finalHeatingUsd: number,
-    finalElectricityUsd: number,
-  ) => {
-    const fanMost = Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm);
-    const flowMost = (season: SeasonBox | null) =>
-      season === null ? 0 : node.cfm50 * season.flowPerCfm50.hi;
-    const heatingLeast = Math.min(
-      finalHeatingUsd,
-      bound.heatingUsdPerCfm *
-        combine(flowLow(rangeBox.heating, natural.heatingCfm, lo, 0, most), fanAtX) *
-        (1 - ENERGY_MARGIN),
-    );
-    const electricityLeast = Math.min(
-      finalElectricityUsd,
-      (bound.coolingUsdPerCfm *
-        combine(flowLow(rangeBox.cooling, natural.coolingCfm, lo, 0, most), fanAtX) +
-        times(
-          bound.latentUsdPerCfm,
-          combine(flowLow(rangeBox.latent ?? null, naturalLatentCfm, lo, 0, most), fanAtX),
-        ) +
-        bound.fanUsdPerCfm * (fanAtX - model.existingFanCfm)) *
-        (1 - ENERGY_MARGIN),
-    );
-    return {
-      heating: {
-        atNode: node.heatingUsd,
-        least: heatingLeast,
-        most:
-          bound.heatingUsdPerCfm *
-          combine(flowMost(rangeBox.heating), fanMost) *
-          (1 + ENERGY_MARGIN),
-      },
-      electricity: {
-        atNode: node.electricityUsd,
-        least: electricityLeast,
-        most:
-          (bound.coolingUsdPerCfm * combine(flowMost(rangeBox.cooling), fanMost) +
-            times(bound.latentUsdPerCfm, combine(flowMost(rangeBox.latent ?? null), fanMost)) +
-            bound.fanUsdPerCfm * (fanMost - model.existingFanCfm)) *
-          (1 + ENERGY_MARGIN),
-      },
-    };
+  const walk: RangeWalk = {
+    bound,
+    node,
+    measures,
+    settings,
+    mayWin,
+    outlookOf: outlookMaker(node, settings, slack),
+    natural,
+    // Hour by hour the latent load's own mean flow (aim2-box.ts `latent`; 0 on degree days,
+    // where bound.latentUsdPerCfm is 0).
+    naturalLatentCfm: natural.coolingLatentCfm ?? 0,
+    spreads,
+    rounding: HALF_CENT_USD * measures.length,
+    curve,
+    bottom: node.cfm50 - curve.totalCfm50,
+    rooms: roomsOf(node, measures),
+    budgetLeft: settings.budgetLeftUsd * (1 + BOUND_MARGIN) + 1e-9,
+    fanAtX: Math.max(model.existingFanCfm, model.ventilation(node.cfm50).fanNeedCfm),
   };
-
-  /** Whether packages whose final total is in [lo, hi] may win, halving up to `depth` times. */
-  const mayWinIn = (lo: number, hi: number, depth: number, outer: typeof whole): boolean => {
-    const least = node.cfm50 - hi;
-    const most = node.cfm50 - lo;
-    const leastCostUsd = leastCostOf(least);
-    if (leastCostUsd > budgetLeft) return false;
-    // (g): the states on the way to a total of at least lo; the outer range's box where this
-    // one's has no bound (it holds these states too).
-    const ranged =
-      lo > bottom && depth >= AIM2_HALVINGS - RANGED_BOX_HALVINGS
-        ? subtreeBox(bound, node.leakage, measures, lo, settings.budgetLeftUsd)
-        : null;
-    const sums = ranged === null ? outer : sumsOver(ranged, lo);
-    const { excessUpTo, pvUpTo, savingsUpTo, netUpTo } = sums;
-    const fanCfm = Math.max(model.existingFanCfm, model.ventilation(hi).fanNeedCfm);
-    const heatingCfm = combine(
-      flowLow(sums.box.heating, natural.heatingCfm, lo, least, most),
-      fanCfm,
-    );
-    const coolingCfm = combine(
-      flowLow(sums.box.cooling, natural.coolingCfm, lo, least, most),
-      fanCfm,
-    );
-    const latentCfm = combine(
-      flowLow(sums.box.latent ?? null, naturalLatentCfm, lo, least, most),
-      fanCfm,
-    );
-    const heatingLow = bound.heatingUsdPerCfm * heatingCfm * (1 - ENERGY_MARGIN);
-    const electricityLow =
-      (bound.coolingUsdPerCfm * coolingCfm +
-        times(bound.latentUsdPerCfm, latentCfm) +
-        bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
-      (1 - ENERGY_MARGIN);
-    // (i): the dollars of every state on the way, for the bound by parts; (k) with the fan
-    // taken out first.
-    const dollars = wayDollars(sums.box, lo, most, heatingLow, electricityLow);
-    const flowsOnTheWay = (season: SeasonBox | null, atNode: number): FlowRange => ({
-      atNode,
-      least: Math.min(
-        flowLow(season, atNode, lo, 0, most),
-        flowLow(season, atNode, lo, least, most),
-      ),
-      most: season === null ? 0 : node.cfm50 * season.flowPerCfm50.hi,
-    });
-    const byParts =
-      Math.min(
-        pathFactorPvBoundUsd(measures, dollars.heating, dollars.electricity),
-        fanSplitPvBoundUsd({
-          measures,
-          heatingFactorLeast: spreads.heatingLeast,
-          electricityFactorLeast: spreads.electricityLeast,
-          balanced: bound.balanced,
-          fanAtNode: fanAtX,
-          fanFinalLeast: fanCfm,
-          fanMost: Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm),
-          heatingUsdPerCfm: bound.heatingUsdPerCfm,
-          coolingUsdPerCfm: bound.coolingUsdPerCfm,
-          latentUsdPerCfm: bound.latentUsdPerCfm,
-          fanUsdPerCfm: bound.fanUsdPerCfm,
-          heating: flowsOnTheWay(sums.box.heating, natural.heatingCfm),
-          cooling: flowsOnTheWay(sums.box.cooling, natural.coolingCfm),
-          latent: flowsOnTheWay(sums.box.latent ?? null, naturalLatentCfm),
-        }),
-      ) *
-        (1 + BOUND_MARGIN) +
-      rounding;
-    const terms = {
-      pvUsd: Math.min(
-        spreads.heatingLeast * (node.heatingUsd - heatingLow) +
-          spreads.electricityLeast * (node.electricityUsd - electricityLow) +
-          excessUpTo(least, most) +
-          rounding,
-        pvUpTo(least, most) + rounding,
-        2 * pvUpTo(0, most, true),
-        // (h): PV − cost ≤ the net knapsack, so PV ≤ it + the least cost (not for 'sir').
-        settings.objective === 'sir' ? Infinity : netUpTo(least, most) + rounding + leastCostUsd,
-        byParts,
-      ),
-      savingsUsd: Math.min(
-        node.heatingUsd + node.electricityUsd - heatingLow - electricityLow + rounding,
-        savingsUpTo(least, most) + rounding,
-        2 * savingsUpTo(0, most, true),
-      ),
-      leastCostUsd,
-      fanPaid: node.fanNeeded || hi < settings.fanThresholdCfm50,
-    };
-    // A bound that is not a number proves nothing.
-    if (Number.isNaN(terms.pvUsd) || Number.isNaN(terms.savingsUsd)) return true;
-    const outlook = outlookOf(terms);
-    if (outlook !== null && Number.isNaN(outlook.score)) return true;
-    if (outlook === null || !mayWin(outlook)) return false;
-    if (depth === 0 || hi - lo <= 0) return true;
-    const middle = (lo + hi) / 2;
-    return mayWinIn(middle, hi, depth - 1, sums) || mayWinIn(lo, middle, depth - 1, sums);
-  };
-  return mayWinIn(bottom, node.cfm50, AIM2_HALVINGS, whole);
+  return mayWinIn(walk, walk.bottom, node.cfm50, AIM2_HALVINGS, rangeSums(walk, box, walk.bottom));
 }

@@ -97,31 +97,50 @@ export function variable(index: 0 | 1 | 2, range: Interval): Dual {
   };
 }
 
-function mapD(f: (part: Interval, at: number) => Interval, a: Dual): Dual['d'] {
-  return [f(a.d[0], 0), f(a.d[1], 1), f(a.d[2], 2)];
-}
-
 export function add(a: Dual, b: Dual): Dual {
-  return { v: iAdd(a.v, b.v), d: mapD((part, at) => iAdd(part, b.d[at] ?? ZERO), a) };
+  return {
+    v: iAdd(a.v, b.v),
+    d: [iAdd(a.d[0], b.d[0]), iAdd(a.d[1], b.d[1]), iAdd(a.d[2], b.d[2])],
+  };
 }
 
 export function sub(a: Dual, b: Dual): Dual {
-  return { v: iSub(a.v, b.v), d: mapD((part, at) => iSub(part, b.d[at] ?? ZERO), a) };
+  return {
+    v: iSub(a.v, b.v),
+    d: [iSub(a.d[0], b.d[0]), iSub(a.d[1], b.d[1]), iSub(a.d[2], b.d[2])],
+  };
 }
 
 export function scale(a: Dual, k: number): Dual {
-  return { v: iScale(a.v, k), d: mapD((part) => iScale(part, k), a) };
+  return { v: iScale(a.v, k), d: [iScale(a.d[0], k), iScale(a.d[1], k), iScale(a.d[2], k)] };
 }
 
 export function plus(a: Dual, k: number): Dual {
   return { v: { lo: a.v.lo + k, hi: a.v.hi + k }, d: a.d };
 }
 
+/** (a·b)′ = a′·b + a·b′ for each derivative. */
+function productRule(aPart: Interval, b: Interval, a: Interval, bPart: Interval): Interval {
+  return iAdd(iMul(aPart, b), iMul(a, bPart));
+}
+
 export function mul(a: Dual, b: Dual): Dual {
   return {
     v: iMul(a.v, b.v),
-    d: mapD((part, at) => iAdd(iMul(part, b.v), iMul(a.v, b.d[at] ?? ZERO)), a),
+    d: [
+      productRule(a.d[0], b.v, a.v, b.d[0]),
+      productRule(a.d[1], b.v, a.v, b.d[1]),
+      productRule(a.d[2], b.v, a.v, b.d[2]),
+    ],
   };
+}
+
+/**
+ * a·r for r a range constant over the box: `mul(a, constantIn(r))` without the zero
+ * derivatives' terms (each is a·[0, 0] = [0, 0], as `product` takes 0·∞), the same result.
+ */
+export function mulByRange(a: Dual, r: Interval): Dual {
+  return { v: iMul(a.v, r), d: [iMul(a.d[0], r), iMul(a.d[1], r), iMul(a.d[2], r)] };
 }
 
 /** a / b for b > 0 over the box; null otherwise. */
@@ -129,14 +148,10 @@ export function div(a: Dual, b: Dual): Dual | null {
   if (!(b.v.lo > 0)) return null;
   const inverse: Interval = { lo: 1 / b.v.hi, hi: 1 / b.v.lo };
   const quotient = iMul(a.v, inverse);
-  const inverseSquared = iMul(inverse, inverse);
-  return {
-    v: quotient,
-    d: mapD(
-      (part, at) => iSub(iMul(part, inverse), iMul(iMul(a.v, inverseSquared), b.d[at] ?? ZERO)),
-      a,
-    ),
-  };
+  const aOverB2 = iMul(a.v, iMul(inverse, inverse));
+  const part = (aPart: Interval, bPart: Interval) =>
+    iSub(iMul(aPart, inverse), iMul(aOverB2, bPart));
+  return { v: quotient, d: [part(a.d[0], b.d[0]), part(a.d[1], b.d[1]), part(a.d[2], b.d[2])] };
 }
 
 /** a^p for a constant p and a ≥ 0; null when a reaches below 0. */
@@ -145,7 +160,7 @@ export function pow(a: Dual, p: number): Dual | null {
   const slope = iPow(a.v, p - 1);
   if (value === null || slope === null) return null;
   const factor = iScale(slope, p);
-  return { v: value, d: mapD((part) => iMul(factor, part), a) };
+  return { v: value, d: [iMul(factor, a.d[0]), iMul(factor, a.d[1]), iMul(factor, a.d[2])] };
 }
 
 export function square(a: Dual): Dual {
@@ -156,21 +171,22 @@ export function square(a: Dual): Dual {
       ? { lo: 0, hi: Math.max(lo2, hi2) }
       : { lo: Math.min(lo2, hi2), hi: Math.max(lo2, hi2) };
   const twice = iScale(a.v, 2);
-  return { v, d: mapD((part) => iMul(twice, part), a) };
+  return { v, d: [iMul(twice, a.d[0]), iMul(twice, a.d[1]), iMul(twice, a.d[2])] };
 }
 
 export function min(a: Dual, b: Dual): Dual {
   const v: Interval = { lo: Math.min(a.v.lo, b.v.lo), hi: Math.min(a.v.hi, b.v.hi) };
   if (a.v.hi <= b.v.lo) return { v, d: a.d };
   if (b.v.hi <= a.v.lo) return { v, d: b.d };
-  return { v, d: mapD((part, at) => hull(part, b.d[at] ?? ZERO), a) };
+  return { v, d: [hull(a.d[0], b.d[0]), hull(a.d[1], b.d[1]), hull(a.d[2], b.d[2])] };
 }
 
 export function abs(a: Dual): Dual {
   if (a.v.lo >= 0) return a;
   if (a.v.hi <= 0) return scale(a, -1);
   const v: Interval = { lo: 0, hi: Math.max(-a.v.lo, a.v.hi) };
-  return { v, d: mapD((part) => hull(part, iScale(part, -1)), a) };
+  const either = (part: Interval) => hull(part, iScale(part, -1));
+  return { v, d: [either(a.d[0]), either(a.d[1]), either(a.d[2])] };
 }
 
 /** b^t at b = 0: 1 for t = 0, 0 above, +∞ below. */
@@ -202,8 +218,14 @@ export function powInUnit(base: Dual, exponent: Dual): Dual | null {
     lo: Math.min(powLog(turning, e.lo), 0),
     hi: Math.max(powLog(b.lo, e.hi), powLog(b.hi, e.hi)),
   };
+  const part = (basePart: Interval, exponentPart: Interval) =>
+    iAdd(iMul(byBase, basePart), iMul(byExponent, exponentPart));
   return {
     v: value,
-    d: mapD((part, at) => iAdd(iMul(byBase, part), iMul(byExponent, exponent.d[at] ?? ZERO)), base),
+    d: [
+      part(base.d[0], exponent.d[0]),
+      part(base.d[1], exponent.d[1]),
+      part(base.d[2], exponent.d[2]),
+    ],
   };
 }

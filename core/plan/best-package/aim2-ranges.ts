@@ -1,0 +1,354 @@
+/**
+ * The walk over ranges of final totals of the AIM-2 bound ((d)–(k) of bounds-aim2.ts's top
+ * comment): for a node and a range [lo, hi] of the totals its packages can end at, the
+ * bounds on their PV and savings, judged by the ranking's `mayWin`, the range halved while it
+ * may still win. Written as plain functions of one `RangeWalk` per node, so a node's walk
+ * builds no closures beyond the knapsacks' rate functions.
+ */
+import { LEAK_LOCATIONS, type LeakLocation } from '../../schema.ts';
+import type { SeasonalAirflowCfm } from '../../energy.ts';
+import type { Aim2Box, SeasonBox } from './aim2-box.ts';
+import {
+  ENERGY_MARGIN,
+  knapsackOf,
+  stepSlopes,
+  subtreeBox,
+  times,
+  type Aim2Bound,
+  type StepSlopes,
+} from './aim2-steps.ts';
+import type { BoundNode, BoundSettings, CellOutlook, CellTerms } from './bounds.ts';
+import { fanSplitPvBoundUsd, type FlowRange } from './fan-split.ts';
+import { pathFactorPvBoundUsd } from './path-factors.ts';
+import {
+  BOUND_MARGIN,
+  type CostCurve,
+  type FactorSpreads,
+  type LiveMeasure,
+} from './remaining-measures.ts';
+
+/** How many times the walk may halve a range of final totals that may still win. */
+export const AIM2_HALVINGS = 14;
+
+/** For how many of those halvings a range gets a box of its own ((g)); deeper ones reuse it. */
+export const RANGED_BOX_HALVINGS = 6;
+
+/** What a node's walk over its ranges works from. */
+export interface RangeWalk {
+  bound: Aim2Bound;
+  node: BoundNode;
+  measures: readonly LiveMeasure[];
+  settings: BoundSettings;
+  mayWin: (outlook: CellOutlook) => boolean;
+  outlookOf: (terms: CellTerms) => CellOutlook | null;
+  /** The node's natural flows (the latent one 0 on degree days). */
+  natural: SeasonalAirflowCfm;
+  naturalLatentCfm: number;
+  spreads: FactorSpreads;
+  /** Half a cent a live step (bounds-aim2.ts (f)). */
+  rounding: number;
+  curve: CostCurve;
+  /** The lowest total the measures can reach, CFM50. */
+  bottom: number;
+  /** The most that can be removed at each location below the node, CFM50. */
+  rooms: readonly { location: LeakLocation; room: number }[];
+  /** The budget left, widened by the margin, USD. */
+  budgetLeft: number;
+  /** F at the node, cfm. */
+  fanAtX: number;
+}
+
+/** A range's box and the knapsacks of (f) and (h) on its slopes. */
+export interface RangeSums {
+  box: Aim2Box;
+  excessUpTo: ReturnType<typeof knapsackOf>;
+  pvUpTo: ReturnType<typeof knapsackOf>;
+  netUpTo: ReturnType<typeof knapsackOf>;
+  savingsUpTo: ReturnType<typeof knapsackOf>;
+}
+
+/** The rooms of (d): what the live measures can remove at each location below the node. */
+export function roomsOf(
+  node: BoundNode,
+  measures: readonly LiveMeasure[],
+): { location: LeakLocation; room: number }[] {
+  const lower = { ...node.leakage };
+  for (const measure of measures) lower[measure.location] -= measure.sizeCfm50;
+  return LEAK_LOCATIONS.map((location) => ({
+    location,
+    room: node.leakage[location] - Math.max(0, lower[location]),
+  }));
+}
+
+/** The largest Σ D_l·x_l of (d) for a total in [least, most]. */
+function largestFall(
+  season: SeasonBox,
+  rooms: readonly { location: LeakLocation; room: number }[],
+  least: number,
+  most: number,
+): number {
+  const sorted = [...rooms].sort(
+    (a, b) => season.fallPerCfm50[b.location] - season.fallPerCfm50[a.location],
+  );
+  let taken = 0;
+  let fall = 0;
+  for (const { location, room } of sorted) {
+    const rate = season.fallPerCfm50[location];
+    const limit = rate > 0 ? most : least;
+    const part = Math.min(room, Math.max(0, limit - taken));
+    if (part <= 0) continue;
+    taken += part;
+    fall += rate * part;
+  }
+  return fall;
+}
+
+/** The natural flow with the fan's (e): Φ = q + F, hypot(F, q) or q. */
+function combine(bound: Aim2Bound, infiltrationCfm: number, fanCfm: number): number {
+  return fanCfm === 0
+    ? infiltrationCfm
+    : bound.balanced
+      ? fanCfm + infiltrationCfm
+      : Math.hypot(fanCfm, infiltrationCfm);
+}
+
+/** (d): the least final flow of a season for a removal in [least, most] and a total ≥ lo. */
+function flowLow(
+  walk: RangeWalk,
+  season: SeasonBox | null,
+  atX: number,
+  lo: number,
+  least: number,
+  most: number,
+): number {
+  return season === null
+    ? 0
+    : Math.max(0, lo * season.flowPerCfm50.lo, atX - largestFall(season, walk.rooms, least, most));
+}
+
+/** K(L): the least the measures can cost to remove `removed` CFM50 (b). */
+function leastCostOf(curve: CostCurve, removed: number): number {
+  let cost = 0;
+  let start = 0;
+  for (let segment = 0; segment < curve.lengthsCfm50.length; segment += 1) {
+    const length = curve.lengthsCfm50[segment] ?? 0;
+    cost += Math.min(length, Math.max(0, removed - start)) * (curve.ratesUsdPerCfm50[segment] ?? 0);
+    start += length;
+  }
+  return cost;
+}
+
+/** (f)(2): a step's PV per CFM50 removed at most, p_j = hf_j·ĝ_h + ef_j·ĝ_e. */
+function pvRateOf(slopes: StepSlopes, measure: LiveMeasure): number {
+  return (
+    times(measure.factors.heating, slopes.heating[measure.location]) +
+    times(measure.factors.electricity, slopes.electricity[measure.location])
+  );
+}
+
+/**
+ * (e): each step's signed saving per CFM50 removed, by location, over the box of the states
+ * whose total is at least `leastTotalCfm50` (g), with the knapsacks of (f) and (h) on them.
+ */
+export function rangeSums(walk: RangeWalk, rangeBox: Aim2Box, leastTotalCfm50: number): RangeSums {
+  const { measures, spreads } = walk;
+  const slopes = stepSlopes(walk.bound, rangeBox, walk.node.cfm50, leastTotalCfm50);
+  return {
+    box: rangeBox,
+    // A measure at the least factors has no excess, whatever its slopes.
+    excessUpTo: knapsackOf(
+      measures,
+      (measure) =>
+        times(measure.factors.heating - spreads.heatingLeast, slopes.heating[measure.location]) +
+        times(
+          measure.factors.electricity - spreads.electricityLeast,
+          slopes.electricity[measure.location],
+        ),
+    ),
+    pvUpTo: knapsackOf(measures, (measure) => pvRateOf(slopes, measure)),
+    // (h): PV less cost per CFM50, jointly for each measure.
+    netUpTo: knapsackOf(
+      measures,
+      (measure) => pvRateOf(slopes, measure) - measure.costUsd / measure.sizeCfm50,
+    ),
+    savingsUpTo: knapsackOf(
+      measures,
+      (measure) => slopes.heating[measure.location] + slopes.electricity[measure.location],
+    ),
+  };
+}
+
+/**
+ * (i): a year's dollars at X and their range over the states on the way to a final total in
+ * [lo, X's]: every such state has a total in [lo, c_X], so its flow is at most c_X·G_hi and
+ * its fan at most F(lo); at least the flow of (d) with nothing removed required and the fan
+ * at X's, or the final state's least (`finalHeatingUsd`, `finalElectricityUsd`).
+ */
+function wayDollars(
+  walk: RangeWalk,
+  rangeBox: Aim2Box,
+  lo: number,
+  most: number,
+  finalHeatingUsd: number,
+  finalElectricityUsd: number,
+) {
+  const { bound, node, natural, fanAtX } = walk;
+  const model = bound.model;
+  const fanMost = Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm);
+  const heatingMost = node.cfm50 * rangeBox.heating.flowPerCfm50.hi;
+  const coolingMost = rangeBox.cooling === null ? 0 : node.cfm50 * rangeBox.cooling.flowPerCfm50.hi;
+  const latent = rangeBox.latent ?? null;
+  const latentMost = latent === null ? 0 : node.cfm50 * latent.flowPerCfm50.hi;
+  const heatingLeast = Math.min(
+    finalHeatingUsd,
+    bound.heatingUsdPerCfm *
+      combine(bound, flowLow(walk, rangeBox.heating, natural.heatingCfm, lo, 0, most), fanAtX) *
+      (1 - ENERGY_MARGIN),
+  );
+  const electricityLeast = Math.min(
+    finalElectricityUsd,
+    (bound.coolingUsdPerCfm *
+      combine(bound, flowLow(walk, rangeBox.cooling, natural.coolingCfm, lo, 0, most), fanAtX) +
+      times(
+        bound.latentUsdPerCfm,
+        combine(bound, flowLow(walk, latent, walk.naturalLatentCfm, lo, 0, most), fanAtX),
+      ) +
+      bound.fanUsdPerCfm * (fanAtX - model.existingFanCfm)) *
+      (1 - ENERGY_MARGIN),
+  );
+  return {
+    heating: {
+      atNode: node.heatingUsd,
+      least: heatingLeast,
+      most: bound.heatingUsdPerCfm * combine(bound, heatingMost, fanMost) * (1 + ENERGY_MARGIN),
+    },
+    electricity: {
+      atNode: node.electricityUsd,
+      least: electricityLeast,
+      most:
+        (bound.coolingUsdPerCfm * combine(bound, coolingMost, fanMost) +
+          times(bound.latentUsdPerCfm, combine(bound, latentMost, fanMost)) +
+          bound.fanUsdPerCfm * (fanMost - model.existingFanCfm)) *
+        (1 + ENERGY_MARGIN),
+    },
+  };
+}
+
+/** (k): a season's natural flow at the node and its range on the way to a total ≥ lo. */
+function flowsOnTheWay(
+  walk: RangeWalk,
+  season: SeasonBox | null,
+  atNode: number,
+  lo: number,
+  least: number,
+  most: number,
+): FlowRange {
+  return {
+    atNode,
+    least: Math.min(
+      flowLow(walk, season, atNode, lo, 0, most),
+      flowLow(walk, season, atNode, lo, least, most),
+    ),
+    most: season === null ? 0 : walk.node.cfm50 * season.flowPerCfm50.hi,
+  };
+}
+
+/** Whether packages whose final total is in [lo, hi] may win, halving up to `depth` times. */
+export function mayWinIn(
+  walk: RangeWalk,
+  lo: number,
+  hi: number,
+  depth: number,
+  outer: RangeSums,
+): boolean {
+  const { bound, node, measures, settings, natural, naturalLatentCfm, spreads, rounding } = walk;
+  const model = bound.model;
+  const least = node.cfm50 - hi;
+  const most = node.cfm50 - lo;
+  const leastCostUsd = leastCostOf(walk.curve, least);
+  if (leastCostUsd > walk.budgetLeft) return false;
+  // (g): the states on the way to a total of at least lo; the outer range's box where this
+  // one's has no bound (it holds these states too).
+  const ranged =
+    lo > walk.bottom && depth >= AIM2_HALVINGS - RANGED_BOX_HALVINGS
+      ? subtreeBox(bound, node.leakage, measures, lo, settings.budgetLeftUsd)
+      : null;
+  const sums = ranged === null ? outer : rangeSums(walk, ranged, lo);
+  const { excessUpTo, pvUpTo, savingsUpTo, netUpTo } = sums;
+  const latentSeason = sums.box.latent ?? null;
+  const fanCfm = Math.max(model.existingFanCfm, model.ventilation(hi).fanNeedCfm);
+  const heatingCfm = combine(
+    bound,
+    flowLow(walk, sums.box.heating, natural.heatingCfm, lo, least, most),
+    fanCfm,
+  );
+  const coolingCfm = combine(
+    bound,
+    flowLow(walk, sums.box.cooling, natural.coolingCfm, lo, least, most),
+    fanCfm,
+  );
+  const latentCfm = combine(
+    bound,
+    flowLow(walk, latentSeason, naturalLatentCfm, lo, least, most),
+    fanCfm,
+  );
+  const heatingLow = bound.heatingUsdPerCfm * heatingCfm * (1 - ENERGY_MARGIN);
+  const electricityLow =
+    (bound.coolingUsdPerCfm * coolingCfm +
+      times(bound.latentUsdPerCfm, latentCfm) +
+      bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
+    (1 - ENERGY_MARGIN);
+  // (i): the dollars of every state on the way, for the bound by parts; (k) with the fan
+  // taken out first.
+  const dollars = wayDollars(walk, sums.box, lo, most, heatingLow, electricityLow);
+  const byParts =
+    Math.min(
+      pathFactorPvBoundUsd(measures, dollars.heating, dollars.electricity),
+      fanSplitPvBoundUsd({
+        measures,
+        heatingFactorLeast: spreads.heatingLeast,
+        electricityFactorLeast: spreads.electricityLeast,
+        balanced: bound.balanced,
+        fanAtNode: walk.fanAtX,
+        fanFinalLeast: fanCfm,
+        fanMost: Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm),
+        heatingUsdPerCfm: bound.heatingUsdPerCfm,
+        coolingUsdPerCfm: bound.coolingUsdPerCfm,
+        latentUsdPerCfm: bound.latentUsdPerCfm,
+        fanUsdPerCfm: bound.fanUsdPerCfm,
+        heating: flowsOnTheWay(walk, sums.box.heating, natural.heatingCfm, lo, least, most),
+        cooling: flowsOnTheWay(walk, sums.box.cooling, natural.coolingCfm, lo, least, most),
+        latent: flowsOnTheWay(walk, latentSeason, naturalLatentCfm, lo, least, most),
+      }),
+    ) *
+      (1 + BOUND_MARGIN) +
+    rounding;
+  const terms = {
+    pvUsd: Math.min(
+      spreads.heatingLeast * (node.heatingUsd - heatingLow) +
+        spreads.electricityLeast * (node.electricityUsd - electricityLow) +
+        excessUpTo(least, most) +
+        rounding,
+      pvUpTo(least, most) + rounding,
+      2 * pvUpTo(0, most, true),
+      // (h): PV − cost ≤ the net knapsack, so PV ≤ it + the least cost (not for 'sir').
+      settings.objective === 'sir' ? Infinity : netUpTo(least, most) + rounding + leastCostUsd,
+      byParts,
+    ),
+    savingsUsd: Math.min(
+      node.heatingUsd + node.electricityUsd - heatingLow - electricityLow + rounding,
+      savingsUpTo(least, most) + rounding,
+      2 * savingsUpTo(0, most, true),
+    ),
+    leastCostUsd,
+    fanPaid: node.fanNeeded || hi < settings.fanThresholdCfm50,
+  };
+  // A bound that is not a number proves nothing.
+  if (Number.isNaN(terms.pvUsd) || Number.isNaN(terms.savingsUsd)) return true;
+  const outlook = walk.outlookOf(terms);
+  if (outlook !== null && Number.isNaN(outlook.score)) return true;
+  if (outlook === null || !walk.mayWin(outlook)) return false;
+  if (depth === 0 || hi - lo <= 0) return true;
+  const middle = (lo + hi) / 2;
+  return mayWinIn(walk, middle, hi, depth - 1, sums) || mayWinIn(walk, lo, middle, depth - 1, sums);
+}
