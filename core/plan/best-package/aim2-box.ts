@@ -87,6 +87,8 @@ export interface SeasonBox {
   flowPerCfm50: Interval;
   /** The most the flow can fall per CFM50 removed at each location (may be < 0), cfm/CFM50. */
   fallPerCfm50: Record<LeakLocation, number>;
+  /** The locations by their fall, the largest first (ties in LEAK_LOCATIONS order). */
+  byFall: readonly LeakLocation[];
 }
 
 export interface Aim2Box {
@@ -199,7 +201,10 @@ export function aim2BoxBounds(
     const only = onlyLocation(box);
     if (only !== null) {
       for (const season of [heatingBox, coolingBox, latentBox]) {
-        if (season !== null) season.fallPerCfm50 = fallsAtOne(only, season);
+        if (season !== null) {
+          season.fallPerCfm50 = fallsAtOne(only, season);
+          season.byFall = byFall(season.fallPerCfm50);
+        }
       }
     }
     return hourly
@@ -303,7 +308,13 @@ function seasonBox(g: Dual, shares: Interval[], perCfm50: number): SeasonBox {
       hi: g.v.hi * (1 + BOX_MARGIN) * perCfm50,
     },
     fallPerCfm50,
+    byFall: byFall(fallPerCfm50),
   };
+}
+
+/** The locations by their fall, the largest first; a stable sort keeps ties in order. */
+function byFall(fallPerCfm50: Record<LeakLocation, number>): LeakLocation[] {
+  return [...LEAK_LOCATIONS].sort((a, b) => fallPerCfm50[b] - fallPerCfm50[a]);
 }
 
 /** The one location with leakage anywhere in the box, or null when there are more (or none). */

@@ -51,7 +51,7 @@ export interface RangeWalk {
   /** The lowest total the measures can reach, CFM50. */
   bottom: number;
   /** The most that can be removed at each location below the node, CFM50. */
-  rooms: readonly { location: LeakLocation; room: number }[];
+  rooms: Readonly<Record<LeakLocation, number>>;
   /** The budget left, widened by the margin, USD. */
   budgetLeft: number;
   /** F at the node, cfm. */
@@ -71,31 +71,29 @@ export interface RangeSums {
 export function roomsOf(
   node: BoundNode,
   measures: readonly LiveMeasure[],
-): { location: LeakLocation; room: number }[] {
+): Record<LeakLocation, number> {
   const lower = { ...node.leakage };
   for (const measure of measures) lower[measure.location] -= measure.sizeCfm50;
-  return LEAK_LOCATIONS.map((location) => ({
-    location,
-    room: node.leakage[location] - Math.max(0, lower[location]),
-  }));
+  const rooms = {} as Record<LeakLocation, number>;
+  for (const location of LEAK_LOCATIONS) {
+    rooms[location] = node.leakage[location] - Math.max(0, lower[location]);
+  }
+  return rooms;
 }
 
 /** The largest Σ D_l·x_l of (d) for a total in [least, most]. */
 function largestFall(
   season: SeasonBox,
-  rooms: readonly { location: LeakLocation; room: number }[],
+  rooms: Readonly<Record<LeakLocation, number>>,
   least: number,
   most: number,
 ): number {
-  const sorted = [...rooms].sort(
-    (a, b) => season.fallPerCfm50[b.location] - season.fallPerCfm50[a.location],
-  );
   let taken = 0;
   let fall = 0;
-  for (const { location, room } of sorted) {
+  for (const location of season.byFall) {
     const rate = season.fallPerCfm50[location];
     const limit = rate > 0 ? most : least;
-    const part = Math.min(room, Math.max(0, limit - taken));
+    const part = Math.min(rooms[location], Math.max(0, limit - taken));
     if (part <= 0) continue;
     taken += part;
     fall += rate * part;
@@ -261,7 +259,7 @@ export function mayWinIn(
   depth: number,
   outer: RangeSums,
 ): boolean {
-  const { bound, node, measures, settings, natural, naturalLatentCfm, spreads, rounding } = walk;
+  const { bound, node, measures, settings, natural, naturalLatentCfm, rounding } = walk;
   const model = bound.model;
   const least = node.cfm50 - hi;
   const most = node.cfm50 - lo;
@@ -274,7 +272,6 @@ export function mayWinIn(
       ? subtreeBox(bound, node.leakage, measures, lo, settings.budgetLeftUsd)
       : null;
   const sums = ranged === null ? outer : rangeSums(walk, ranged, lo);
-  const { excessUpTo, pvUpTo, savingsUpTo, netUpTo } = sums;
   const latentSeason = sums.box.latent ?? null;
   const fanCfm = Math.max(model.existingFanCfm, model.ventilation(hi).fanNeedCfm);
   const heatingCfm = combine(
@@ -298,6 +295,54 @@ export function mayWinIn(
       times(bound.latentUsdPerCfm, latentCfm) +
       bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
     (1 - ENERGY_MARGIN);
+  const range: RangeLows = { lo, least, most, sums, fanCfm, heatingLow, electricityLow };
+  // An objective's outlook reads only its own terms (bounds.ts `outlookMaker`: the PV for
+  // 'npv', 'sir' and the package SIR rule, the savings for 'savings'); the other is left at
+  // +∞, a bound that says nothing.
+  const terms = {
+    pvUsd:
+      settings.objective !== 'savings' || settings.packageSirAtLeastOne
+        ? pvBoundUsd(walk, range, leastCostUsd)
+        : Infinity,
+    savingsUsd:
+      settings.objective === 'savings'
+        ? Math.min(
+            node.heatingUsd + node.electricityUsd - heatingLow - electricityLow + rounding,
+            sums.savingsUpTo(least, most) + rounding,
+            2 * sums.savingsUpTo(0, most, true),
+          )
+        : Infinity,
+    leastCostUsd,
+    fanPaid: node.fanNeeded || hi < settings.fanThresholdCfm50,
+  };
+  // A bound that is not a number proves nothing.
+  if (Number.isNaN(terms.pvUsd) || Number.isNaN(terms.savingsUsd)) return true;
+  const outlook = walk.outlookOf(terms);
+  if (outlook !== null && Number.isNaN(outlook.score)) return true;
+  if (outlook === null || !walk.mayWin(outlook)) return false;
+  if (depth === 0 || hi - lo <= 0) return true;
+  const middle = (lo + hi) / 2;
+  return mayWinIn(walk, middle, hi, depth - 1, sums) || mayWinIn(walk, lo, middle, depth - 1, sums);
+}
+
+/** A range's lows: its bottom lo, its removals [least, most], and the final state's least. */
+interface RangeLows {
+  lo: number;
+  least: number;
+  most: number;
+  sums: RangeSums;
+  /** The final state's least fan flow, F(hi), cfm. */
+  fanCfm: number;
+  /** The final state's least heating and electricity dollars a year. */
+  heatingLow: number;
+  electricityLow: number;
+}
+
+/** (f), (h), (i) and (k): the most the PV of a package ending in the range can be, USD. */
+function pvBoundUsd(walk: RangeWalk, range: RangeLows, leastCostUsd: number): number {
+  const { bound, node, measures, settings, natural, naturalLatentCfm, spreads, rounding } = walk;
+  const { lo, least, most, sums, fanCfm, heatingLow, electricityLow } = range;
+  const model = bound.model;
   // (i): the dollars of every state on the way, for the bound by parts; (k) with the fan
   // taken out first.
   const dollars = wayDollars(walk, sums.box, lo, most, heatingLow, electricityLow);
@@ -318,37 +363,20 @@ export function mayWinIn(
         fanUsdPerCfm: bound.fanUsdPerCfm,
         heating: flowsOnTheWay(walk, sums.box.heating, natural.heatingCfm, lo, least, most),
         cooling: flowsOnTheWay(walk, sums.box.cooling, natural.coolingCfm, lo, least, most),
-        latent: flowsOnTheWay(walk, latentSeason, naturalLatentCfm, lo, least, most),
+        latent: flowsOnTheWay(walk, sums.box.latent ?? null, naturalLatentCfm, lo, least, most),
       }),
     ) *
       (1 + BOUND_MARGIN) +
     rounding;
-  const terms = {
-    pvUsd: Math.min(
-      spreads.heatingLeast * (node.heatingUsd - heatingLow) +
-        spreads.electricityLeast * (node.electricityUsd - electricityLow) +
-        excessUpTo(least, most) +
-        rounding,
-      pvUpTo(least, most) + rounding,
-      2 * pvUpTo(0, most, true),
-      // (h): PV − cost ≤ the net knapsack, so PV ≤ it + the least cost (not for 'sir').
-      settings.objective === 'sir' ? Infinity : netUpTo(least, most) + rounding + leastCostUsd,
-      byParts,
-    ),
-    savingsUsd: Math.min(
-      node.heatingUsd + node.electricityUsd - heatingLow - electricityLow + rounding,
-      savingsUpTo(least, most) + rounding,
-      2 * savingsUpTo(0, most, true),
-    ),
-    leastCostUsd,
-    fanPaid: node.fanNeeded || hi < settings.fanThresholdCfm50,
-  };
-  // A bound that is not a number proves nothing.
-  if (Number.isNaN(terms.pvUsd) || Number.isNaN(terms.savingsUsd)) return true;
-  const outlook = walk.outlookOf(terms);
-  if (outlook !== null && Number.isNaN(outlook.score)) return true;
-  if (outlook === null || !walk.mayWin(outlook)) return false;
-  if (depth === 0 || hi - lo <= 0) return true;
-  const middle = (lo + hi) / 2;
-  return mayWinIn(walk, middle, hi, depth - 1, sums) || mayWinIn(walk, lo, middle, depth - 1, sums);
+  return Math.min(
+    spreads.heatingLeast * (node.heatingUsd - heatingLow) +
+      spreads.electricityLeast * (node.electricityUsd - electricityLow) +
+      sums.excessUpTo(least, most) +
+      rounding,
+    sums.pvUpTo(least, most) + rounding,
+    2 * sums.pvUpTo(0, most, true),
+    // (h): PV − cost ≤ the net knapsack, so PV ≤ it + the least cost (not for 'sir').
+    settings.objective === 'sir' ? Infinity : sums.netUpTo(least, most) + rounding + leastCostUsd,
+    byParts,
+  );
 }

@@ -126,6 +126,36 @@ export function largestStepPvAim2Usd(slopes: StepSlopes, measure: LiveMeasure): 
   return measure.sizeCfm50 * Math.max(0, perCfm50) * (1 + BOUND_MARGIN) + HALF_CENT_USD + 1e-9;
 }
 
+/** The measures' sizes and rates in the order of the rates, largest first. */
+interface RateEntries {
+  sizes: Float64Array;
+  rates: Float64Array;
+}
+
+/** Sizes and rates by rate, ties in the measures' order (a stable sort by insertion). */
+function byRate(
+  measures: readonly LiveMeasure[],
+  rate: (measure: LiveMeasure) => number,
+): RateEntries {
+  const count = measures.length;
+  const rates = new Float64Array(count);
+  const sizes = new Float64Array(count);
+  for (let i = 0; i < count; i += 1) {
+    const measure = measures[i];
+    if (measure === undefined) continue;
+    const r = rate(measure);
+    let j = i;
+    while (j > 0 && (rates[j - 1] ?? 0) < r) {
+      rates[j] = rates[j - 1] ?? 0;
+      sizes[j] = sizes[j - 1] ?? 0;
+      j -= 1;
+    }
+    rates[j] = r;
+    sizes[j] = measure.sizeCfm50;
+  }
+  return { sizes, rates };
+}
+
 /**
  * The most Σ rate_j·x_j over 0 ≤ x_j ≤ a_j with Σ x_j in [least, most] (or, `positive`, the
  * most Σ rate_j⁺·x_j up to `most`): the largest rates first, the negative ones only as far as
@@ -134,17 +164,19 @@ export function largestStepPvAim2Usd(slopes: StepSlopes, measure: LiveMeasure): 
 export function knapsackOf(
   measures: readonly LiveMeasure[],
   rate: (measure: LiveMeasure) => number,
-) {
-  const entries = measures
-    .map((measure) => ({ size: measure.sizeCfm50, rate: rate(measure) }))
-    .sort((a, b) => b.rate - a.rate);
-  return (least: number, most: number, positive = false): number => {
+): (least: number, most: number, positive?: boolean) => number {
+  // Built on first use: a bound may not need every knapsack it is offered.
+  let entries: RateEntries | null = null;
+  return (least, most, positive = false) => {
+    entries ??= byRate(measures, rate);
+    const { sizes, rates } = entries;
     let taken = 0;
     let total = 0;
-    for (const entry of entries) {
-      const perCfm50 = positive ? Math.max(0, entry.rate) : entry.rate;
+    for (let i = 0; i < rates.length; i += 1) {
+      const entryRate = rates[i] ?? 0;
+      const perCfm50 = positive ? Math.max(0, entryRate) : entryRate;
       const limit = perCfm50 > 0 ? most : least;
-      const part = Math.min(entry.size, Math.max(0, limit - taken));
+      const part = Math.min(sizes[i] ?? 0, Math.max(0, limit - taken));
       if (part <= 0) continue;
       taken += part;
       total += perCfm50 * part;
