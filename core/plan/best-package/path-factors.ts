@@ -14,7 +14,8 @@
  * over a subsequence of the measures that can still remove anything, in canonical order; the
  * bound takes the largest value over all such subsequences, by dynamic programming over the
  * last measure taken (the value of a subsequence depends only on its first factor and its
- * rises, and extending one adds its last rise). Its worth is where slopes are unbounded: the
+ * rises, and extending one adds its last rise; the best chain ending at each distinct pair of
+ * factors is all the extension needs). Its worth is where slopes are unbounded: the
  * range of dollars is finite wherever the flow is.
  */
 import type { LiveMeasure } from './remaining-measures.ts';
@@ -41,22 +42,34 @@ export function pathFactorPvBoundUsd(
   const electricityFirst = electricity.atNode - electricity.least;
   const heatingRise = Math.max(0, heating.most - heating.least);
   const electricityRise = Math.max(0, electricity.most - electricity.least);
-  const best = new Float64Array(measures.length);
+  // The value of a chain ending at a measure; extending it adds a rise that depends only on
+  // the last measure's factors, so it is enough to keep, for each distinct pair of factors
+  // (measures of one life share theirs), the best chain ending at one with that pair.
+  const heatingOf: number[] = [];
+  const electricityOf: number[] = [];
+  const bestOf: number[] = [];
   let largest = 0;
-  measures.forEach((measure, j) => {
-    const { factors } = measure;
+  for (const { factors } of measures) {
     let value = factors.heating * heatingFirst + factors.electricity * electricityFirst;
-    for (let i = 0; i < j; i++) {
-      const earlier = measures[i]?.factors;
-      if (earlier === undefined) continue;
+    let own = -1;
+    for (let k = 0; k < bestOf.length; k += 1) {
+      const heating = heatingOf[k] ?? 0;
+      const electricity = electricityOf[k] ?? 0;
       const extended =
-        (best[i] ?? 0) +
-        Math.max(0, factors.heating - earlier.heating) * heatingRise +
-        Math.max(0, factors.electricity - earlier.electricity) * electricityRise;
+        (bestOf[k] ?? 0) +
+        Math.max(0, factors.heating - heating) * heatingRise +
+        Math.max(0, factors.electricity - electricity) * electricityRise;
       value = Math.max(value, extended);
+      if (heating === factors.heating && electricity === factors.electricity) own = k;
     }
-    best[j] = value;
+    if (own < 0) {
+      heatingOf.push(factors.heating);
+      electricityOf.push(factors.electricity);
+      bestOf.push(value);
+    } else {
+      bestOf[own] = Math.max(bestOf[own] ?? 0, value);
+    }
     largest = Math.max(largest, value);
-  });
+  }
   return largest;
 }
