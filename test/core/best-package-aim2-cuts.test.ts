@@ -11,7 +11,6 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
 import { totalCfm50 } from '../../core/home-model.ts';
-import { bestPackage } from '../../core/plan/best-package.ts';
 import {
   aim2BoxBounds,
   onlyLocation,
@@ -26,11 +25,11 @@ import { buildPriceBook } from '../../core/plan/prices.ts';
 import { LEAK_LOCATIONS, type HomeFileInput, type LeakLocation } from '../../core/schema.ts';
 import { homeArbitrary } from '../_lib/home-arbitrary.ts';
 import {
-  bestByBruteForce,
   everyPackage,
   measuresInPlanOrder,
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
+import { expectBruteForceBest } from '../_lib/expect-brute-force.ts';
 
 const SEED = 20261203;
 
@@ -349,15 +348,7 @@ describe('best package on homes with most leakage in the ceiling: equals brute f
         },
       ];
       for (const query of queries) {
-        const expected = bestByBruteForce(packages, query);
-        const found = bestPackage(evaluation, { ...query });
-        const context = `${home.name}, ${JSON.stringify(query)}`;
-        expect(found.measureIds, context).toEqual(expected.measureIds);
-        expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
-        expect(found.annualSavingsUsd.toFixed(2), context).toBe(
-          expected.annualSavingsUsd.toFixed(2),
-        );
-        expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
+        const found = expectBruteForceBest(evaluation, packages, query, home.name);
         if (query.objective === 'npv') {
           if (found.budgetCostUsd.isZero()) emptyWins += 1;
           else measuresWin += 1;

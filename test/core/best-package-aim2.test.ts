@@ -22,11 +22,11 @@ import type { LiveMeasure } from '../../core/plan/best-package/remaining-measure
 import { buildPriceBook } from '../../core/plan/prices.ts';
 import { LEAK_LOCATIONS, type HomeFileInput } from '../../core/schema.ts';
 import {
-  bestByBruteForce,
   everyPackage,
   measuresInPlanOrder,
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
+import { expectBruteForceBest } from '../_lib/expect-brute-force.ts';
 import { boxBelow, stateIn, swingingYear, uniformFrom } from '../_lib/aim2-states.ts';
 import { generatedPackageHomes, packageQueriesFor } from '../_lib/package-cases.ts';
 
@@ -46,17 +46,7 @@ function generatedHomes(
 /** bestPackage against brute force on one evaluation; returns how many queries were compared. */
 function compareWithBruteForce(evaluation: Evaluation, queries: BruteForceQuery[], label: string) {
   const packages = everyPackage(evaluation);
-  for (const query of queries) {
-    const expected = bestByBruteForce(packages, query);
-    const found = bestPackage(evaluation, { ...query });
-    const context = `${label}, ${JSON.stringify(query)}`;
-    expect(found.measureIds, context).toEqual(expected.measureIds);
-    expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
-    expect(found.annualSavingsUsd.toFixed(2), context).toBe(expected.annualSavingsUsd.toFixed(2));
-    expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
-    expect(found.sir?.toString() ?? null, context).toBe(expected.sir?.toString() ?? null);
-    expect(found.budgetCostUsd.lte(query.budgetUsd), context).toBe(true);
-  }
+  for (const query of queries) expectBruteForceBest(evaluation, packages, query, label);
   return { compared: queries.length, count: measuresInPlanOrder(evaluation).energy.length };
 }
 

@@ -12,18 +12,17 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { evaluateHome } from '../../core/evaluate.ts';
-import { bestPackage } from '../../core/plan/best-package.ts';
 import { fanSplitPvBoundUsd } from '../../core/plan/best-package/fan-split.ts';
 import { pathFactorPvBoundUsd } from '../../core/plan/best-package/path-factors.ts';
 import type { LiveMeasure } from '../../core/plan/best-package/remaining-measures.ts';
 import type { HomeFileInput } from '../../core/schema.ts';
 import { homeArbitrary } from '../_lib/home-arbitrary.ts';
 import {
-  bestByBruteForce,
   everyPackage,
   measuresInPlanOrder,
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
+import { expectBruteForceBest } from '../_lib/expect-brute-force.ts';
 
 const SEED = 20261202;
 
@@ -295,17 +294,7 @@ describe('best package on tight AIM-2 homes that call for a fan: equals brute fo
           packageSirAtLeastOne: true,
         },
       ];
-      for (const query of queries) {
-        const expected = bestByBruteForce(packages, query);
-        const found = bestPackage(evaluation, { ...query });
-        const context = `${home.name}, ${JSON.stringify(query)}`;
-        expect(found.measureIds, context).toEqual(expected.measureIds);
-        expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
-        expect(found.annualSavingsUsd.toFixed(2), context).toBe(
-          expected.annualSavingsUsd.toFixed(2),
-        );
-        expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
-      }
+      for (const query of queries) expectBruteForceBest(evaluation, packages, query, home.name);
     }
     // Most of the generated homes do call for the fan before any sealing.
     expect(fanHomes).toBeGreaterThan(30);

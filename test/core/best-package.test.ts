@@ -14,7 +14,6 @@ import {
   fanThresholdCfm50,
   usefulFloorCfm50,
   packageFigures,
-  type BestPackageOptions,
 } from '../../core/plan/best-package.ts';
 import Decimal from 'decimal.js';
 import { totalCfm50, type LeakageByLocation } from '../../core/home-model.ts';
@@ -33,21 +32,17 @@ import { TANAGER_STREET } from '../../db/demo/homes/tanager-street.ts';
 import { expectInputError } from '../_lib/expect-input-error.ts';
 import { validBaseHome } from '../_lib/base-home.ts';
 import {
-  bestByBruteForce,
   everyPackage,
   measuresInPlanOrder,
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
+import { expectBruteForceBest } from '../_lib/expect-brute-force.ts';
 import { generatedPackageHomes, packageQueriesFor } from '../_lib/package-cases.ts';
 
 const SEED = 20261201;
 const HOMES = 200;
 
 const homes = generatedPackageHomes({ count: HOMES, seed: SEED });
-
-function optionsOf(query: BruteForceQuery): BestPackageOptions {
-  return { ...query };
-}
 
 describe('best package: equals brute force', () => {
   it(`on ${HOMES} generated homes of up to 14 measures, four queries each`, () => {
@@ -61,18 +56,7 @@ describe('best package: equals brute force', () => {
       counts.push(measuresInPlanOrder(evaluation).energy.length);
       expect(packages).toHaveLength(2 ** measuresInPlanOrder(evaluation).energy.length);
       for (const query of packageQueriesFor(evaluation, budgetFraction, kind)) {
-        const expected = bestByBruteForce(packages, query);
-        const found = bestPackage(evaluation, optionsOf(query));
-        const context = `${home.infiltrationMethod}, ${JSON.stringify(query)}`;
-        expect(found.measureIds, context).toEqual(expected.measureIds);
-        expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
-        expect(found.annualSavingsUsd.toFixed(2), context).toBe(
-          expected.annualSavingsUsd.toFixed(2),
-        );
-        expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
-        expect(found.sir?.toString() ?? null, context).toBe(expected.sir?.toString() ?? null);
-        // Respects the budget; the energy measures' cost is what it covers.
-        expect(found.budgetCostUsd.lte(query.budgetUsd), context).toBe(true);
+        const found = expectBruteForceBest(evaluation, packages, query, home.infiltrationMethod);
         expect(found.nodesVisited).toBeLessThanOrEqual(packages.length);
         expect(found.proven).toBe(true);
         compared += 1;
@@ -535,17 +519,7 @@ describe('best package: equals brute force on crowded demo homes', () => {
           packageSirAtLeastOne: false,
         },
       ];
-      for (const query of queries) {
-        const expected = bestByBruteForce(packages, query);
-        const found = bestPackage(evaluation, optionsOf(query));
-        const context = `${base.name}, ${JSON.stringify(query)}`;
-        expect(found.measureIds, context).toEqual(expected.measureIds);
-        expect(found.npvUsd.toFixed(2), context).toBe(expected.npvUsd.toFixed(2));
-        expect(found.annualSavingsUsd.toFixed(2), context).toBe(
-          expected.annualSavingsUsd.toFixed(2),
-        );
-        expect(found.costUsd.toFixed(2), context).toBe(expected.costUsd.toFixed(2));
-      }
+      for (const query of queries) expectBruteForceBest(evaluation, packages, query, base.name);
     }
     expect([...methods].sort()).toEqual(['aim2', 'ashrae622', 'lblBasic', 'nFactor']);
   }, 120_000);
