@@ -9,23 +9,17 @@
  */
 import { describe, expect, it } from 'vitest';
 import { evaluateHome } from '../../core/evaluate.ts';
-import { totalCfm50, type LeakageByLocation } from '../../core/home-model.ts';
+import { totalCfm50 } from '../../core/home-model.ts';
 import { aim2BoxBounds } from '../../core/plan/best-package/aim2-box.ts';
 import { hourlyDrivers } from '../../core/plan/best-package/aim2-hourly-bins.ts';
-import {
-  buildAim2Bound,
-  stepSlopes,
-  subtreeBox,
-} from '../../core/plan/best-package/bounds-aim2.ts';
-import type { LiveMeasure } from '../../core/plan/best-package/remaining-measures.ts';
-import { buildPriceBook } from '../../core/plan/prices.ts';
 import { LEAK_LOCATIONS, parseHomeFile, type HomeFileInput } from '../../core/schema.ts';
 import type { WeatherYear } from '../../core/weather/hourly-airflow.ts';
 import { hourlyAim2Pressures } from '../../core/weather/hourly-airflow.ts';
 import { hourlyBasisOf } from '../../core/weather/hourly-climate.ts';
 import { boxBelow, stateIn, swingingYear, uniformFrom } from '../_lib/aim2-states.ts';
-import { everyPackage, measuresInPlanOrder } from '../_lib/package-brute-force.ts';
+import { everyPackage } from '../_lib/package-brute-force.ts';
 import { expectBruteForceBest } from '../_lib/expect-brute-force.ts';
+import { checkStepDollars } from '../_lib/aim2-step-dollars.ts';
 import { generatedPackageHomes, packageQueriesFor } from '../_lib/package-cases.ts';
 
 const SEED = 20261204;
@@ -202,54 +196,7 @@ describe('the AIM-2 box bounds hour by hour', () => {
   it('bound what a step saves in heating and electricity dollars, latent load and fan in', () => {
     const next = uniformFrom(SEED + 3);
     let checked = 0;
-    for (const { evaluation } of homes) {
-      const { model } = evaluation;
-      const prices = buildPriceBook(evaluation.home);
-      const bound = buildAim2Bound(model, prices);
-      const dollars = (leakage: LeakageByLocation) => {
-        const energy = model.energyOf(leakage);
-        return {
-          heating: energy.heatingFuelUnits * prices.heating.usdPerUnitFloat,
-          electricity:
-            (energy.coolingKwh + energy.ventilationFanKwh) *
-            (prices.electricity?.usdPerUnitFloat ?? 0),
-        };
-      };
-      const upper = model.testIn;
-      const live: LiveMeasure[] = measuresInPlanOrder(evaluation).energy.map((measure, index) => ({
-        index,
-        location: measure.location,
-        sizeCfm50: Math.min(Math.max(0, measure.estimateCfm50.likely), upper[measure.location]),
-        costUsd: measure.cost.totalUsdFloat,
-        factors: { heating: 1, electricity: 1 },
-      }));
-      const box = subtreeBox(bound, upper, live);
-      if (box === null) continue;
-      const lower = { ...upper };
-      for (const measure of live) lower[measure.location] -= measure.sizeCfm50;
-      for (const location of LEAK_LOCATIONS) lower[location] = Math.max(0, lower[location]);
-      const bottom = Math.max(model.floorCfm50, totalCfm50(lower));
-      const slopes = stepSlopes(bound, box, model.testInCfm50, bottom);
-      for (let sample = 0; sample < 8; sample += 1) {
-        const state = stateIn(lower, upper, next);
-        if (totalCfm50(state) < bottom) continue;
-        const before = dollars(state);
-        for (const location of LEAK_LOCATIONS) {
-          const room = Math.min(state[location] - lower[location], totalCfm50(state) - bottom);
-          if (room <= 0) continue;
-          const step = room * next();
-          const after = dollars({ ...state, [location]: state[location] - step });
-          const tolerance = 1e-9 * (1 + before.heating + before.electricity);
-          expect(before.heating - after.heating).toBeLessThanOrEqual(
-            step * slopes.heating[location] + tolerance,
-          );
-          expect(before.electricity - after.electricity).toBeLessThanOrEqual(
-            step * slopes.electricity[location] + tolerance,
-          );
-          checked += 1;
-        }
-      }
-    }
+    for (const { evaluation } of homes) checked += checkStepDollars(evaluation, next).checked;
     expect(checked).toBeGreaterThan(300);
   });
 });
