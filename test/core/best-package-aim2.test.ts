@@ -8,7 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { evaluateHome, type Evaluation } from '../../core/evaluate.ts';
-import { totalCfm50, type LeakageByLocation } from '../../core/home-model.ts';
+import type { LeakageByLocation } from '../../core/home-model.ts';
 import { bestPackage } from '../../core/plan/best-package.ts';
 import { aim2BoxBounds } from '../../core/plan/best-package/aim2-box.ts';
 import { buildEnergyCells, cellLowCfm50 } from '../../core/plan/best-package/energy-cells.ts';
@@ -21,7 +21,7 @@ import {
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
 import { expectBruteForceBest } from '../_lib/expect-brute-force.ts';
-import { checkStepDollars } from '../_lib/aim2-step-dollars.ts';
+import { checkStateInBox, checkStepDollars } from '../_lib/aim2-box-checks.ts';
 import { boxBelow, stateIn, swingingYear, uniformFrom } from '../_lib/aim2-states.ts';
 import { generatedPackageHomes, packageQueriesFor } from '../_lib/package-cases.ts';
 
@@ -92,40 +92,10 @@ describe('the AIM-2 bound: the conditions it rests on', () => {
         if (box === null) continue;
         for (let sample = 0; sample < 5; sample += 1) {
           const state = stateIn(lower, upper, next);
-          const total = totalCfm50(state);
-          // The search never goes below the leakage floor, and the box's shares rely on it.
-          if (total < model.floorCfm50) continue;
-          const flow = model.airflow(state);
-          const seasons = [
-            { cfm: flow.heatingCfm, season: box.heating },
-            { cfm: flow.coolingCfm, season: box.cooling },
-          ];
-          for (const { cfm, season } of seasons) {
-            if (season === null) {
-              expect(cfm).toBe(0);
-              continue;
-            }
-            const tolerance = 1e-9 * (1 + cfm);
-            expect(cfm).toBeGreaterThanOrEqual(total * season.flowPerCfm50.lo - tolerance);
-            expect(cfm).toBeLessThanOrEqual(total * season.flowPerCfm50.hi + tolerance);
-          }
-          for (const location of LEAK_LOCATIONS) {
-            const room = Math.min(state[location] - lower[location], total - model.floorCfm50);
-            if (room <= 0) continue;
-            const step = room * next();
-            const after = model.airflow({ ...state, [location]: state[location] - step });
-            const falls = [
-              { fall: flow.heatingCfm - after.heatingCfm, season: box.heating },
-              { fall: flow.coolingCfm - after.coolingCfm, season: box.cooling },
-            ];
-            for (const { fall, season } of falls) {
-              if (season === null) continue;
-              const bound = season.fallPerCfm50[location];
-              if (Number.isFinite(bound)) finite += 1;
-              expect(fall).toBeLessThanOrEqual(step * bound + 1e-9 * (1 + Math.abs(fall)));
-            }
-            checked += 1;
-          }
+          const result = checkStateInBox(model, box, lower, state, next);
+          if (result === null) continue;
+          checked += result.checked;
+          finite += result.finite;
         }
       }
     }

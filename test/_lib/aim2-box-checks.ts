@@ -1,13 +1,17 @@
 /**
- * (e) of core/plan/best-package/bounds-aim2.ts held to the model: for states s drawn in a
- * home's box at test-in and s′ = s − a·e_l (a within the room), a year's heating and
- * electricity dollars from `model.energyOf` (natural flow, the 62.2 fan and its power; hour by
- * hour the latent load too) fall by at most a·slope of `stepSlopes`. Shared by the
- * degree-day and the hourly AIM-2 tests.
+ * The AIM-2 box bounds held to the model, for the degree-day and the hourly AIM-2 tests:
+ * - `checkStateInBox`: (c) of core/plan/best-package/bounds-aim2.ts, a state's flow per
+ *   CFM50 within the box's range for each season (heating, cooling, and hour by hour the
+ *   latent load), and its fall for a step at each location within D_l;
+ * - `checkStepDollars`: (e), for states s drawn in a home's box at test-in and s′ = s − a·e_l
+ *   (a within the room), a year's heating and electricity dollars from `model.energyOf`
+ *   (natural flow, the 62.2 fan and its power; hour by hour the latent load too) fall by at
+ *   most a·slope of `stepSlopes`.
  */
 import { expect } from 'vitest';
 import type { Evaluation } from '../../core/evaluate.ts';
-import { totalCfm50, type LeakageByLocation } from '../../core/home-model.ts';
+import { totalCfm50, type HomeModel, type LeakageByLocation } from '../../core/home-model.ts';
+import type { Aim2Box } from '../../core/plan/best-package/aim2-box.ts';
 import {
   buildAim2Bound,
   stepSlopes,
@@ -18,6 +22,63 @@ import { buildPriceBook } from '../../core/plan/prices.ts';
 import { LEAK_LOCATIONS } from '../../core/schema.ts';
 import { stateIn } from './aim2-states.ts';
 import { measuresInPlanOrder } from './package-brute-force.ts';
+
+/**
+ * Expects a state's flows within the box's ranges and each step's fall within D_l; each step
+ * takes one draw of `next` for its size.
+ *
+ * @returns the steps checked, how many of their falls had a finite bound and the state's
+ *   latent flow (0 on degree days), or null for a
+ *   state below the floor (the search never goes there, and the box's shares rely on it)
+ */
+export function checkStateInBox(
+  model: HomeModel,
+  box: Aim2Box,
+  lower: Readonly<LeakageByLocation>,
+  state: LeakageByLocation,
+  next: () => number,
+): { checked: number; finite: number; latentCfm: number } | null {
+  const total = totalCfm50(state);
+  if (total < model.floorCfm50) return null;
+  const flow = model.airflow(state);
+  // On degree days there is no latent flow of its own and no latent season in the box.
+  const latentCfm = flow.coolingLatentCfm ?? 0;
+  const seasons = [
+    { cfm: flow.heatingCfm, season: box.heating },
+    { cfm: flow.coolingCfm, season: box.cooling },
+    { cfm: latentCfm, season: box.latent ?? null },
+  ];
+  for (const { cfm, season } of seasons) {
+    if (season === null) {
+      expect(cfm).toBe(0);
+      continue;
+    }
+    const tolerance = 1e-9 * (1 + cfm);
+    expect(cfm).toBeGreaterThanOrEqual(total * season.flowPerCfm50.lo - tolerance);
+    expect(cfm).toBeLessThanOrEqual(total * season.flowPerCfm50.hi + tolerance);
+  }
+  let checked = 0;
+  let finite = 0;
+  for (const location of LEAK_LOCATIONS) {
+    const room = Math.min(state[location] - lower[location], total - model.floorCfm50);
+    if (room <= 0) continue;
+    const step = room * next();
+    const after = model.airflow({ ...state, [location]: state[location] - step });
+    const falls = [
+      { fall: flow.heatingCfm - after.heatingCfm, season: box.heating },
+      { fall: flow.coolingCfm - after.coolingCfm, season: box.cooling },
+      { fall: latentCfm - (after.coolingLatentCfm ?? 0), season: box.latent ?? null },
+    ];
+    for (const { fall, season } of falls) {
+      if (season === null) continue;
+      const bound = season.fallPerCfm50[location];
+      if (Number.isFinite(bound)) finite += 1;
+      expect(fall).toBeLessThanOrEqual(step * bound + 1e-9 * (1 + Math.abs(fall)));
+    }
+    checked += 1;
+  }
+  return { checked, finite, latentCfm };
+}
 
 /**
  * Draws `samples` states in the home's box and steps from each at every location, expecting
