@@ -85,3 +85,28 @@ export function packageQueriesFor(
     },
   ];
 }
+
+/**
+ * A home's measures all planned as energy measures, their materials and labour hours scaled
+ * by `costScale` (to the cent and the hundredth of an hour), for homes shaped to test one
+ * corner of the search.
+ */
+export function plannedEnergyMeasures(
+  measures: HomeFileInput['measures'],
+  costScale: number,
+): HomeFileInput['measures'] {
+  return measures.map((measure) => ({
+    ...measure,
+    status: 'planned',
+    cost: {
+      ...measure.cost,
+      healthAndSafety: false,
+      ...(measure.cost.materialsUsd === undefined
+        ? {}
+        : { materialsUsd: Math.round(measure.cost.materialsUsd * costScale * 100) / 100 }),
+      ...(measure.cost.laborHours === undefined
+        ? {}
+        : { laborHours: Math.round(measure.cost.laborHours * costScale * 100) / 100 }),
+    },
+  }));
+}

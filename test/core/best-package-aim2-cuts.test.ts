@@ -30,6 +30,7 @@ import {
   type BruteForceQuery,
 } from '../_lib/package-brute-force.ts';
 import { expectBruteForceBest } from '../_lib/expect-brute-force.ts';
+import { plannedEnergyMeasures } from '../_lib/package-cases.ts';
 
 const SEED = 20261203;
 
@@ -70,20 +71,7 @@ function ceilingHomes(count: number, seed: number, most: number) {
           floor,
           flue: 0,
         },
-        measures: home.measures.map((measure) => ({
-          ...measure,
-          status: 'planned',
-          cost: {
-            ...measure.cost,
-            healthAndSafety: false,
-            ...(measure.cost.materialsUsd === undefined
-              ? {}
-              : { materialsUsd: Math.round(measure.cost.materialsUsd * costScale * 100) / 100 }),
-            ...(measure.cost.laborHours === undefined
-              ? {}
-              : { laborHours: Math.round(measure.cost.laborHours * costScale * 100) / 100 }),
-          },
-        })),
+        measures: plannedEnergyMeasures(home.measures, costScale),
       };
       delete shaped.leakageFloorCfm50;
       return { home: shaped, budgetFraction };
