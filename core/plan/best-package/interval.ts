@@ -83,11 +83,6 @@ export function constant(value: number): Dual {
   return { v: { lo: value, hi: value }, d: [ZERO, ZERO, ZERO] };
 }
 
-/** A quantity constant over the box but known only to lie in a range (no derivative). */
-export function constantIn(range: Interval): Dual {
-  return { v: range, d: [ZERO, ZERO, ZERO] };
-}
-
 /** The box's variable `index` (0 ceiling, 1 floor, 2 flue share) over [lo, hi]. */
 export function variable(index: 0 | 1 | 2, range: Interval): Dual {
   const one: Interval = { lo: 1, hi: 1 };
@@ -136,8 +131,8 @@ export function mul(a: Dual, b: Dual): Dual {
 }
 
 /**
- * a·r for r a range constant over the box: `mul(a, constantIn(r))` without the zero
- * derivatives' terms (each is a·[0, 0] = [0, 0], as `product` takes 0·∞), the same result.
+ * a·r for r a range constant over the box (known only to lie in r, with no derivative): the
+ * product rule with r′ = 0, whose terms a·[0, 0] are [0, 0] (`product` takes 0·∞ as 0).
  */
 export function mulByRange(a: Dual, r: Interval): Dual {
   return { v: iMul(a.v, r), d: [iMul(a.d[0], r), iMul(a.d[1], r), iMul(a.d[2], r)] };
