@@ -177,40 +177,60 @@ export function rangeSums(walk: RangeWalk, rangeBox: Aim2Box, leastTotalCfm50: n
 }
 
 /**
+ * A season's natural flow for a range: at the node; its least at the final state (d) and on
+ * the way (d with nothing removed required); its most on the way, c_X·G_hi (every state on
+ * the way has a total at most c_X), cfm.
+ */
+interface SeasonLows {
+  atNode: number;
+  finalLeast: number;
+  wayLeast: number;
+  most: number;
+}
+
+function seasonLows(
+  walk: RangeWalk,
+  season: SeasonBox | null,
+  atNode: number,
+  lo: number,
+  least: number,
+  most: number,
+): SeasonLows {
+  return {
+    atNode,
+    finalLeast: flowLow(walk, season, atNode, lo, least, most),
+    wayLeast: flowLow(walk, season, atNode, lo, 0, most),
+    most: season === null ? 0 : walk.node.cfm50 * season.flowPerCfm50.hi,
+  };
+}
+
+/** (k): a season's natural flow at the node and its range on the way to a total ≥ lo. */
+function flowsOnTheWay(lows: SeasonLows): FlowRange {
+  return {
+    atNode: lows.atNode,
+    least: Math.min(lows.wayLeast, lows.finalLeast),
+    most: lows.most,
+  };
+}
+
+/**
  * (i): a year's dollars at X and their range over the states on the way to a final total in
  * [lo, X's]: every such state has a total in [lo, c_X], so its flow is at most c_X·G_hi and
- * its fan at most F(lo); at least the flow of (d) with nothing removed required and the fan
- * at X's, or the final state's least (`finalHeatingUsd`, `finalElectricityUsd`).
+ * its fan at most F(lo) (`fanMostCfm`); at least the way's least flow with the fan at X's, or
+ * the final state's least (`heatingLow`, `electricityLow`).
  */
-function wayDollars(
-  walk: RangeWalk,
-  rangeBox: Aim2Box,
-  lo: number,
-  most: number,
-  finalHeatingUsd: number,
-  finalElectricityUsd: number,
-) {
-  const { bound, node, natural, fanAtX } = walk;
+function wayDollars(walk: RangeWalk, range: RangeLows, fanMostCfm: number) {
+  const { bound, node, fanAtX } = walk;
+  const { heating, cooling, latent } = range;
   const model = bound.model;
-  const fanMost = Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm);
-  const heatingMost = node.cfm50 * rangeBox.heating.flowPerCfm50.hi;
-  const coolingMost = rangeBox.cooling === null ? 0 : node.cfm50 * rangeBox.cooling.flowPerCfm50.hi;
-  const latent = rangeBox.latent ?? null;
-  const latentMost = latent === null ? 0 : node.cfm50 * latent.flowPerCfm50.hi;
   const heatingLeast = Math.min(
-    finalHeatingUsd,
-    bound.heatingUsdPerCfm *
-      combine(bound, flowLow(walk, rangeBox.heating, natural.heatingCfm, lo, 0, most), fanAtX) *
-      (1 - ENERGY_MARGIN),
+    range.heatingLow,
+    bound.heatingUsdPerCfm * combine(bound, heating.wayLeast, fanAtX) * (1 - ENERGY_MARGIN),
   );
   const electricityLeast = Math.min(
-    finalElectricityUsd,
-    (bound.coolingUsdPerCfm *
-      combine(bound, flowLow(walk, rangeBox.cooling, natural.coolingCfm, lo, 0, most), fanAtX) +
-      times(
-        bound.latentUsdPerCfm,
-        combine(bound, flowLow(walk, latent, walk.naturalLatentCfm, lo, 0, most), fanAtX),
-      ) +
+    range.electricityLow,
+    (bound.coolingUsdPerCfm * combine(bound, cooling.wayLeast, fanAtX) +
+      times(bound.latentUsdPerCfm, combine(bound, latent.wayLeast, fanAtX)) +
       bound.fanUsdPerCfm * (fanAtX - model.existingFanCfm)) *
       (1 - ENERGY_MARGIN),
   );
@@ -218,36 +238,17 @@ function wayDollars(
     heating: {
       atNode: node.heatingUsd,
       least: heatingLeast,
-      most: bound.heatingUsdPerCfm * combine(bound, heatingMost, fanMost) * (1 + ENERGY_MARGIN),
+      most: bound.heatingUsdPerCfm * combine(bound, heating.most, fanMostCfm) * (1 + ENERGY_MARGIN),
     },
     electricity: {
       atNode: node.electricityUsd,
       least: electricityLeast,
       most:
-        (bound.coolingUsdPerCfm * combine(bound, coolingMost, fanMost) +
-          times(bound.latentUsdPerCfm, combine(bound, latentMost, fanMost)) +
-          bound.fanUsdPerCfm * (fanMost - model.existingFanCfm)) *
+        (bound.coolingUsdPerCfm * combine(bound, cooling.most, fanMostCfm) +
+          times(bound.latentUsdPerCfm, combine(bound, latent.most, fanMostCfm)) +
+          bound.fanUsdPerCfm * (fanMostCfm - model.existingFanCfm)) *
         (1 + ENERGY_MARGIN),
     },
-  };
-}
-
-/** (k): a season's natural flow at the node and its range on the way to a total ≥ lo. */
-function flowsOnTheWay(
-  walk: RangeWalk,
-  season: SeasonBox | null,
-  atNode: number,
-  lo: number,
-  least: number,
-  most: number,
-): FlowRange {
-  return {
-    atNode,
-    least: Math.min(
-      flowLow(walk, season, atNode, lo, 0, most),
-      flowLow(walk, season, atNode, lo, least, most),
-    ),
-    most: season === null ? 0 : walk.node.cfm50 * season.flowPerCfm50.hi,
   };
 }
 
@@ -272,30 +273,31 @@ export function mayWinIn(
       ? subtreeBox(bound, node.leakage, measures, lo, settings.budgetLeftUsd)
       : null;
   const sums = ranged === null ? outer : rangeSums(walk, ranged, lo);
-  const latentSeason = sums.box.latent ?? null;
+  const heating = seasonLows(walk, sums.box.heating, natural.heatingCfm, lo, least, most);
+  const cooling = seasonLows(walk, sums.box.cooling, natural.coolingCfm, lo, least, most);
+  const latent = seasonLows(walk, sums.box.latent ?? null, naturalLatentCfm, lo, least, most);
   const fanCfm = Math.max(model.existingFanCfm, model.ventilation(hi).fanNeedCfm);
-  const heatingCfm = combine(
-    bound,
-    flowLow(walk, sums.box.heating, natural.heatingCfm, lo, least, most),
-    fanCfm,
-  );
-  const coolingCfm = combine(
-    bound,
-    flowLow(walk, sums.box.cooling, natural.coolingCfm, lo, least, most),
-    fanCfm,
-  );
-  const latentCfm = combine(
-    bound,
-    flowLow(walk, latentSeason, naturalLatentCfm, lo, least, most),
-    fanCfm,
-  );
+  const heatingCfm = combine(bound, heating.finalLeast, fanCfm);
+  const coolingCfm = combine(bound, cooling.finalLeast, fanCfm);
+  const latentCfm = combine(bound, latent.finalLeast, fanCfm);
   const heatingLow = bound.heatingUsdPerCfm * heatingCfm * (1 - ENERGY_MARGIN);
   const electricityLow =
     (bound.coolingUsdPerCfm * coolingCfm +
       times(bound.latentUsdPerCfm, latentCfm) +
       bound.fanUsdPerCfm * (fanCfm - model.existingFanCfm)) *
     (1 - ENERGY_MARGIN);
-  const range: RangeLows = { lo, least, most, sums, fanCfm, heatingLow, electricityLow };
+  const range: RangeLows = {
+    lo,
+    least,
+    most,
+    sums,
+    heating,
+    cooling,
+    latent,
+    fanCfm,
+    heatingLow,
+    electricityLow,
+  };
   // An objective's outlook reads only its own terms (bounds.ts `outlookMaker`: the PV for
   // 'npv', 'sir' and the package SIR rule, the savings for 'savings'); the other is left at
   // +∞, a bound that says nothing.
@@ -325,12 +327,15 @@ export function mayWinIn(
   return mayWinIn(walk, middle, hi, depth - 1, sums) || mayWinIn(walk, lo, middle, depth - 1, sums);
 }
 
-/** A range's lows: its bottom lo, its removals [least, most], and the final state's least. */
+/** A range: its bottom lo, its removals [least, most], each season's flows, the final state's least. */
 interface RangeLows {
   lo: number;
   least: number;
   most: number;
   sums: RangeSums;
+  heating: SeasonLows;
+  cooling: SeasonLows;
+  latent: SeasonLows;
   /** The final state's least fan flow, F(hi), cfm. */
   fanCfm: number;
   /** The final state's least heating and electricity dollars a year. */
@@ -340,12 +345,13 @@ interface RangeLows {
 
 /** (f), (h), (i) and (k): the most the PV of a package ending in the range can be, USD. */
 function pvBoundUsd(walk: RangeWalk, range: RangeLows, leastCostUsd: number): number {
-  const { bound, node, measures, settings, natural, naturalLatentCfm, spreads, rounding } = walk;
+  const { bound, node, measures, settings, spreads, rounding } = walk;
   const { lo, least, most, sums, fanCfm, heatingLow, electricityLow } = range;
   const model = bound.model;
+  const fanMostCfm = Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm);
   // (i): the dollars of every state on the way, for the bound by parts; (k) with the fan
   // taken out first.
-  const dollars = wayDollars(walk, sums.box, lo, most, heatingLow, electricityLow);
+  const dollars = wayDollars(walk, range, fanMostCfm);
   const byParts =
     Math.min(
       pathFactorPvBoundUsd(measures, dollars.heating, dollars.electricity),
@@ -356,14 +362,14 @@ function pvBoundUsd(walk: RangeWalk, range: RangeLows, leastCostUsd: number): nu
         balanced: bound.balanced,
         fanAtNode: walk.fanAtX,
         fanFinalLeast: fanCfm,
-        fanMost: Math.max(model.existingFanCfm, model.ventilation(Math.max(0, lo)).fanNeedCfm),
+        fanMost: fanMostCfm,
         heatingUsdPerCfm: bound.heatingUsdPerCfm,
         coolingUsdPerCfm: bound.coolingUsdPerCfm,
         latentUsdPerCfm: bound.latentUsdPerCfm,
         fanUsdPerCfm: bound.fanUsdPerCfm,
-        heating: flowsOnTheWay(walk, sums.box.heating, natural.heatingCfm, lo, least, most),
-        cooling: flowsOnTheWay(walk, sums.box.cooling, natural.coolingCfm, lo, least, most),
-        latent: flowsOnTheWay(walk, sums.box.latent ?? null, naturalLatentCfm, lo, least, most),
+        heating: flowsOnTheWay(range.heating),
+        cooling: flowsOnTheWay(range.cooling),
+        latent: flowsOnTheWay(range.latent),
       }),
     ) *
       (1 + BOUND_MARGIN) +
